@@ -154,4 +154,3 @@ func (k *Kernel) history(sock Socket, m *message) {
 	}
 	k.reply(sock, m, "history_reply", map[string]any{"status": "ok", "history": items})
 }
-

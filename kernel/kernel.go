@@ -39,8 +39,8 @@ type Kernel struct {
 	iopub   Socket
 	hb      Socket
 
-	queue chan *message // shell requests for the execution goroutine
-	hist  history
+	queue    chan *message // shell requests for the execution goroutine
+	hist     history
 	count    int  // execution_count, owned by the execution goroutine
 	aborting bool // stop_on_error tripped; owned by the execution goroutine
 
