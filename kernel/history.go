@@ -118,12 +118,12 @@ func globMatch(pattern, s string) bool {
 	pi, ti, star, mark := 0, 0, -1, 0
 	for ti < len(t) {
 		switch {
+		case pi < len(p) && p[pi] == '*': // before the literal case: '*' is never literal
+			star, mark = pi, ti
+			pi++
 		case pi < len(p) && (p[pi] == '?' || p[pi] == t[ti]):
 			pi++
 			ti++
-		case pi < len(p) && p[pi] == '*':
-			star, mark = pi, ti
-			pi++
 		case star >= 0:
 			pi = star + 1
 			mark++
