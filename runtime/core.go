@@ -32,7 +32,7 @@ func registerCore(r *Registry) {
 		reduce("min", "The smallest element of x; NaN if any element is NaN.", minOf),
 		reduce("max", "The largest element of x; NaN if any element is NaN.", maxOf),
 		reduce("std", "The sample standard deviation of x (n − 1 in the denominator), in x's unit.", stdOf),
-		spanBuiltin(), lenBuiltin(), helpBuiltin(r), seedBuiltin(), printBuiltin(), showBuiltin(), assertBuiltin(),
+		spanBuiltin(), lenBuiltin(), helpBuiltin(r), seedBuiltin(), printBuiltin(), showBuiltin(), assertBuiltin(), clearBuiltin(),
 	)
 }
 
@@ -398,4 +398,22 @@ func overview(r *Registry) string {
 	}
 	b.WriteString("\nhelp(name) shows one in full.\n")
 	return strings.TrimLeft(b.String(), "\n")
+}
+
+// Clearer is implemented by outputs that can clear what a cell has shown
+// so far (a notebook front end can; a log cannot).
+type Clearer interface{ ClearOutput(wait bool) }
+
+func clearBuiltin() *Builtin {
+	return &Builtin{
+		Name: "clear", Category: "session", Returns: "nothing",
+		Doc:    "Clears what this cell has shown so far. With wait = true the old output stays until the next output replaces it, which avoids flicker when a loop of cells redraws a figure.",
+		Params: []Param{{Name: "wait", Kind: KindBool, Default: "false"}},
+		Fn: func(c *Call) (Value, error) {
+			if cl, ok := c.out.(Clearer); ok {
+				cl.ClearOutput(c.Bool("wait"))
+			}
+			return nothing, nil
+		},
+	}
 }

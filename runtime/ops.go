@@ -56,7 +56,22 @@ func unaryOp(op syntax.Token, x Value) (Value, error) {
 	return nil, fmt.Errorf("unknown unary operator %s", op)
 }
 
+// Operand is implemented by value kinds of domain packages that take part
+// in arithmetic (a sum of stimuli, a scaled stimulus). op is one of
+// "+", "-", "*", "/"; right is true when the value is the right operand.
+// Return ok = false to decline, and the usual error follows.
+type Operand interface {
+	Operate(op string, other Value, right bool) (v Value, ok bool, err error)
+}
+
+var opSymbols = map[syntax.Token]string{syntax.ADD: "+", syntax.SUB: "-", syntax.MUL: "*", syntax.QUO: "/"}
+
 func binaryOp(op syntax.Token, x, y Value) (Value, error) {
+	if sym, ok := opSymbols[op]; ok {
+		if v, ok, err := operate(sym, x, y); ok || err != nil {
+			return v, err
+		}
+	}
 	if a, ok := asOperand(x); ok {
 		if b, ok := asOperand(y); ok {
 			return numeric(op, a, b)
@@ -75,6 +90,18 @@ func binaryOp(op syntax.Token, x, y Value) (Value, error) {
 		}
 	}
 	return nil, ValueErrorf("cannot apply %s to %s and %s", op, article(x.Type()), article(y.Type()))
+}
+
+func operate(sym string, x, y Value) (Value, bool, error) {
+	if o, ok := x.(Operand); ok {
+		if v, ok, err := o.Operate(sym, y, false); ok || err != nil {
+			return v, ok, err
+		}
+	}
+	if o, ok := y.(Operand); ok {
+		return o.Operate(sym, x, true)
+	}
+	return nil, false, nil
 }
 
 func numeric(op syntax.Token, a, b operand) (Value, error) {
