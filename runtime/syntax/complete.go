@@ -1,0 +1,71 @@
+package syntax
+
+import "strings"
+
+// Status says whether a cell's text is finished, for the front end's
+// is_complete request.
+type Status int
+
+// The answers of Completeness.
+const (
+	// Complete text can be run as it is (empty text is complete).
+	Complete Status = iota
+	// Incomplete text needs more: it ends inside an open bracket, after an
+	// operator or keyword that needs an operand, or in an if with no else.
+	Incomplete
+	// Invalid text cannot be finished: running it gives an error whatever
+	// follows (a stray closing bracket, an unterminated string, an illegal
+	// character).
+	Invalid
+)
+
+// String returns the status as the messaging protocol spells it:
+// "complete", "incomplete" or "invalid".
+func (s Status) String() string {
+	switch s {
+	case Complete:
+		return "complete"
+	case Incomplete:
+		return "incomplete"
+	case Invalid:
+		return "invalid"
+	}
+	return "unknown"
+}
+
+// Completeness says whether src is a finished cell. For Incomplete text
+// indent is the suggested indentation of the next line: four spaces per
+// open bracket, and at least four; otherwise it is "".
+//
+// The text is parsed: it is incomplete exactly when its first error is at
+// the very end of the text (the parser wanted more and found the end of
+// input), and invalid when an error comes earlier, because no text added
+// after the end can mend that.
+func Completeness(src string) (st Status, indent string) {
+	_, err := Parse("", src)
+	if err == nil {
+		return Complete, ""
+	}
+	list, ok := err.(ErrorList)
+	if !ok || len(list) == 0 || list[0].Pos.Offset < len(src) {
+		return Invalid, ""
+	}
+	return Incomplete, strings.Repeat("    ", max(openBrackets(src), 1))
+}
+
+// openBrackets counts the brackets left open at the end of src.
+func openBrackets(src string) int {
+	var s scanner
+	s.init(src, nil)
+	depth := 0
+	for {
+		switch s.scan().Tok {
+		case EOF:
+			return depth
+		case LPAREN, LBRACK:
+			depth++
+		case RPAREN, RBRACK:
+			depth = max(depth-1, 0)
+		}
+	}
+}

@@ -1,0 +1,144 @@
+package syntax
+
+import (
+	"errors"
+	"fmt"
+	"strconv"
+)
+
+// parsePrimary parses a literal, a name, a list, a record or a
+// parenthesised expression.
+func (p *parser) parsePrimary() Expr {
+	it := p.tok
+	switch it.Tok {
+	case IDENT:
+		return p.parseIdent("")
+	case NUMBER:
+		p.next()
+		return p.number(it)
+	case STRING:
+		p.next()
+		return &StringLit{ValuePos: it.Pos, Raw: it.Lit, Value: unquote(it.Lit)}
+	case TRUE, FALSE:
+		p.next()
+		return &BoolLit{ValuePos: it.Pos, Value: it.Tok == TRUE}
+	case LBRACK:
+		return p.parseList()
+	case LPAREN:
+		return p.parseParen()
+	case IF:
+		p.errorAt(it.Pos, "expected expression, found keyword 'if'; an if used as an operand goes in parentheses: (if c then a else b)")
+	case ILLEGAL:
+		p.errorExpected("expression") // the scanner has said what is wrong
+	default:
+		p.errorExpected("expression")
+	}
+	switch it.Tok {
+	case RPAREN, RBRACK, COMMA, NEWLINE, EOF, IF:
+		// Left for the enclosing construct, which knows what to do with it.
+		return p.badHere()
+	}
+	p.next()
+	return &BadExpr{From: it.Pos, To: it.End}
+}
+
+// number makes the literal of a scanned NUMBER.
+func (p *parser) number(it Item) *NumberLit {
+	v, err := strconv.ParseFloat(it.Lit, 64)
+	if errors.Is(err, strconv.ErrRange) {
+		p.errorAt(it.Pos, fmt.Sprintf("number %s is out of range; numbers must be below about 1.8e308, so use a larger unit", shorten(it.Lit)))
+	} else if err != nil {
+		p.errorAt(it.Pos, fmt.Sprintf("malformed number %s; write numbers like 20, 1.5 or 2e-3", shorten(it.Lit)))
+	}
+	return &NumberLit{ValuePos: it.Pos, Raw: it.Lit, Value: v}
+}
+
+// parseCall parses the arguments of a call of fun, at '('.
+func (p *parser) parseCall(fun Expr) Expr {
+	c := &CallExpr{Fun: fun, Lparen: p.tok.Pos}
+	p.next()
+	named := false
+	for p.tok.Tok != RPAREN && p.tok.Tok != EOF {
+		a := p.parseArg()
+		if a.Name != nil {
+			named = true
+		} else if named {
+			p.errorAt(a.Value.Pos(), "positional argument after named argument; put positional arguments first")
+		}
+		c.Args = append(c.Args, a)
+		if p.tok.Tok != COMMA {
+			break
+		}
+		p.next()
+	}
+	if p.tok.Tok != RPAREN && p.tok.Tok != EOF {
+		p.errorExpected("',' or ')' in the argument list")
+	}
+	c.Rparen = p.expectClose(RPAREN)
+	return c
+}
+
+// parseArg parses [IDENT "="] expr.
+func (p *parser) parseArg() *Arg {
+	if p.tok.Tok == IDENT && p.peek(1).Tok == ASSIGN {
+		name := p.parseIdent("")
+		p.next()
+		return &Arg{Name: name, Value: p.parseExpr()}
+	}
+	return &Arg{Value: p.parseExpr()}
+}
+
+// parseList parses "[" [exprs] "]".
+func (p *parser) parseList() Expr {
+	l := &ListLit{Lbrack: p.tok.Pos}
+	p.next()
+	for p.tok.Tok != RBRACK && p.tok.Tok != EOF {
+		l.Elems = append(l.Elems, p.parseExpr())
+		if p.tok.Tok != COMMA {
+			break
+		}
+		p.next()
+	}
+	if p.tok.Tok != RBRACK && p.tok.Tok != EOF {
+		p.errorExpected("',' or ']' in the list")
+	}
+	l.Rbrack = p.expectClose(RBRACK)
+	return l
+}
+
+// parseParen parses "(" ")", a record or "(" expr ")".
+func (p *parser) parseParen() Expr {
+	lp := p.tok.Pos
+	p.next()
+	if p.tok.Tok == RPAREN || p.tok.Tok == IDENT && p.peek(1).Tok == ASSIGN {
+		return p.parseRecord(lp)
+	}
+	x := p.parseExpr()
+	if p.tok.Tok == COMMA {
+		p.errorExpected("')'; a record needs names, as in (a = 1, b = 2), and a list uses brackets, as in [1, 2]")
+	}
+	return &ParenExpr{Lparen: lp, X: x, Rparen: p.expectClose(RPAREN)}
+}
+
+// parseRecord parses the fields of a record after its '(' at lp.
+func (p *parser) parseRecord(lp Pos) Expr {
+	r := &RecordLit{Lparen: lp}
+	for p.tok.Tok != RPAREN && p.tok.Tok != EOF {
+		if p.tok.Tok != IDENT || p.peek(1).Tok != ASSIGN {
+			p.errorExpected("a field as name = value; every field of a record needs a name")
+			break
+		}
+		name := p.parseIdent("")
+		p.next()
+		r.Fields = append(r.Fields, &Field{Name: name, Value: p.parseExpr()})
+		if p.tok.Tok != COMMA {
+			break
+		}
+		p.next()
+	}
+	if p.tok.Tok != RPAREN && p.tok.Tok != EOF {
+		p.errorExpected("',' or ')' in the record")
+	}
+	r.Rparen = p.expectClose(RPAREN)
+	return r
+}
