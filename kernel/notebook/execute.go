@@ -151,7 +151,7 @@ func (r *recorder) ClearOutput(wait bool) {
 }
 
 // FromScript makes a notebook of a script: its text is split into cells at
-// lines that start with "#%" (the rest of such a line, if any, becomes a
+// lines that start with "#--" (the rest of such a line, if any, becomes a
 // Markdown cell before the code), so a long script reads as a report.
 func FromScript(src string, nb *Notebook) {
 	var code []string
@@ -163,7 +163,7 @@ func FromScript(src string, nb *Notebook) {
 		code = code[:0]
 	}
 	for _, line := range strings.Split(src, "\n") {
-		if rest, ok := strings.CutPrefix(line, "#%"); ok {
+		if rest, ok := strings.CutPrefix(line, "#--"); ok {
 			flush()
 			if md := strings.TrimSpace(rest); md != "" {
 				nb.AddCell("markdown", md)
