@@ -134,11 +134,10 @@ func (ReLU) Deriv(z float64) float64 { return twoSlopeDeriv(z, 0, 1) }
 // Apply sets dst[i] = max(0, src[i]).
 func (ReLU) Apply(dst, src []float64) {
 	checkLen(dst, src)
+	// The builtin max is branch-free, gives NaN for NaN and +0 for −0,
+	// exactly as relu does; random signs would defeat a branch predictor.
 	for i, z := range src {
-		if z <= 0 {
-			z = 0
-		}
-		dst[i] = z
+		dst[i] = max(z, 0)
 	}
 }
 
