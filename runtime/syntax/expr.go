@@ -16,22 +16,33 @@ func (p *parser) parseCond() Expr {
 	e := &CondExpr{If: p.tok.Pos}
 	p.next()
 	e.Cond = p.parseExpr()
+	p.skipNewlineBefore(THEN)
 	if p.tok.Tok != THEN {
-		p.errorExpected("'then' after the condition, as in if c then a else b")
+		p.errorExpected("'then'", "write if c then a else b")
 		e.Then = p.badHere()
 		e.Else = e.Then
 		return e
 	}
 	p.next()
 	e.Then = p.parseExpr()
+	p.skipNewlineBefore(ELSE)
 	if p.tok.Tok != ELSE {
-		p.errorExpected("'else'; an if needs both branches: if c then a else b")
+		p.errorExpected("'else'", "an if needs both branches: if c then a else b")
 		e.Else = p.badHere()
 		return e
 	}
 	p.next()
 	e.Else = p.parseExpr()
 	return e
+}
+
+// skipNewlineBefore skips a line break followed by tok, so that the
+// branches of an if may start their lines with then and else (a cell that
+// ends before its else is incomplete, and the else may come next).
+func (p *parser) skipNewlineBefore(tok Token) {
+	if p.tok.Tok == NEWLINE && p.peek(1).Tok == tok {
+		p.next()
+	}
 }
 
 func (p *parser) parseOr() Expr {
@@ -94,7 +105,7 @@ func (p *parser) parseConv() Expr {
 	p.next()
 	if p.tok.Tok != IDENT {
 		// An empty unit just after 'in' keeps the tree useful for completion.
-		p.errorExpected("a unit after 'in', as in x in mV")
+		p.errorExpected("a unit after 'in'", "write x in mV")
 		e.UnitPos = p.prevEnd
 		return e
 	}

@@ -157,9 +157,14 @@ func (p *parser) errorAt(pos Pos, msg string) {
 	}
 }
 
-// errorExpected reports that what was expected at the current token.
-func (p *parser) errorExpected(what string) {
-	p.errorAt(p.tok.Pos, "expected "+what+", found "+describe(p.tok))
+// errorExpected reports that what was expected at the current token,
+// followed by a hint on how to fix it if there is one.
+func (p *parser) errorExpected(what, hint string) {
+	msg := "expected " + what + ", found " + describe(p.tok)
+	if hint != "" {
+		msg += "; " + hint
+	}
+	p.errorAt(p.tok.Pos, msg)
 }
 
 // describe names a token as an error message shows it: "name tau",
@@ -204,7 +209,7 @@ func (p *parser) expectClose(tok Token) Pos {
 		p.next()
 		return pos
 	}
-	p.errorExpected(tok.String())
+	p.errorExpected(tok.String(), "")
 	return Pos{Offset: p.prevEnd.Offset - 1, Line: p.prevEnd.Line, Col: p.prevEnd.Col - 1}
 }
 
@@ -276,9 +281,9 @@ func (p *parser) parseStmt() Stmt {
 func (p *parser) parseFormula() Stmt {
 	s := &FormulaStmt{Formula: p.tok.Pos}
 	p.next()
-	s.Name = p.parseIdent("the formula's name after 'formula'")
+	s.Name = p.parseIdent("a name after 'formula'")
 	if p.tok.Tok != LPAREN {
-		p.errorExpected("'(' and the formula's variables, as in formula f(x; a, b) = a*x + b")
+		p.errorExpected("'('", "a formula lists its variables, then its parameters after ';': formula f(x; a, b) = a*x + b")
 		s.Body = p.badHere()
 		return s
 	}
@@ -290,7 +295,7 @@ func (p *parser) parseFormula() Stmt {
 	}
 	p.expectClose(RPAREN)
 	if p.tok.Tok != ASSIGN {
-		p.errorExpected("'=' and the formula's body")
+		p.errorExpected("'='", "give the formula's body after '=': formula f(x; a) = a*x")
 		s.Body = p.badHere()
 		return s
 	}
@@ -320,7 +325,7 @@ func (p *parser) parseIdent(what string) *Ident {
 		p.next()
 		return id
 	}
-	p.errorExpected(what)
+	p.errorExpected(what, "")
 	return &Ident{NamePos: p.tok.Pos}
 }
 

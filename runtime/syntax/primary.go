@@ -29,9 +29,9 @@ func (p *parser) parsePrimary() Expr {
 	case IF:
 		p.errorAt(it.Pos, "expected expression, found keyword 'if'; an if used as an operand goes in parentheses: (if c then a else b)")
 	case ILLEGAL:
-		p.errorExpected("expression") // the scanner has said what is wrong
+		p.errorExpected("expression", "") // the scanner has said what is wrong
 	default:
-		p.errorExpected("expression")
+		p.errorExpected("expression", "")
 	}
 	switch it.Tok {
 	case RPAREN, RBRACK, COMMA, NEWLINE, EOF, IF:
@@ -72,7 +72,7 @@ func (p *parser) parseCall(fun Expr) Expr {
 		p.next()
 	}
 	if p.tok.Tok != RPAREN && p.tok.Tok != EOF {
-		p.errorExpected("',' or ')' in the argument list")
+		p.errorExpected("',' or ')'", "separate arguments with ','")
 	}
 	c.Rparen = p.expectClose(RPAREN)
 	return c
@@ -100,7 +100,7 @@ func (p *parser) parseList() Expr {
 		p.next()
 	}
 	if p.tok.Tok != RBRACK && p.tok.Tok != EOF {
-		p.errorExpected("',' or ']' in the list")
+		p.errorExpected("',' or ']'", "separate list elements with ','")
 	}
 	l.Rbrack = p.expectClose(RBRACK)
 	return l
@@ -115,7 +115,7 @@ func (p *parser) parseParen() Expr {
 	}
 	x := p.parseExpr()
 	if p.tok.Tok == COMMA {
-		p.errorExpected("')'; a record needs names, as in (a = 1, b = 2), and a list uses brackets, as in [1, 2]")
+		p.errorExpected("')'", "a record needs names, as in (a = 1, b = 2), and a list uses brackets, as in [1, 2]")
 	}
 	return &ParenExpr{Lparen: lp, X: x, Rparen: p.expectClose(RPAREN)}
 }
@@ -125,7 +125,7 @@ func (p *parser) parseRecord(lp Pos) Expr {
 	r := &RecordLit{Lparen: lp}
 	for p.tok.Tok != RPAREN && p.tok.Tok != EOF {
 		if p.tok.Tok != IDENT || p.peek(1).Tok != ASSIGN {
-			p.errorExpected("a field as name = value; every field of a record needs a name")
+			p.errorExpected("a field name", "every field of a record is written name = value")
 			break
 		}
 		name := p.parseIdent("")
@@ -137,7 +137,7 @@ func (p *parser) parseRecord(lp Pos) Expr {
 		p.next()
 	}
 	if p.tok.Tok != RPAREN && p.tok.Tok != EOF {
-		p.errorExpected("',' or ')' in the record")
+		p.errorExpected("',' or ')'", "separate record fields with ','")
 	}
 	r.Rparen = p.expectClose(RPAREN)
 	return r
