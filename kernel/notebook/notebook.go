@@ -213,3 +213,19 @@ func WriteAtomic(path string, write func(io.Writer) error) error {
 	}
 	return nil
 }
+
+// MarshalJSON writes the fields nbformat's schema asks of each output type:
+// display_data and execute_result always carry data and metadata (possibly
+// empty); stream and error carry none of those.
+func (o *Output) MarshalJSON() ([]byte, error) {
+	type plain Output
+	switch o.Type {
+	case "display_data", "execute_result":
+		return json.Marshal(struct {
+			*plain
+			Data     map[string]any `json:"data"`
+			Metadata map[string]any `json:"metadata"`
+		}{(*plain)(o), orEmpty(o.Data), orEmpty(o.Metadata)})
+	}
+	return json.Marshal((*plain)(o))
+}
