@@ -1,10 +1,9 @@
-// Package display builds the MIME bundles that Loligo shows: tables, figures,
-// model cards and progress, each rendered as the formats a notebook front end
-// or a plain-text console can show. It is a leaf: it imports nothing of
-// Loligo's, so any layer may use it.
 package display
 
-import "encoding/json"
+import (
+	"encoding/json"
+	"fmt"
+)
 
 // Common MIME types.
 const (
@@ -51,4 +50,35 @@ func (b Bundle) With(mime string, data any) Bundle {
 // JSON returns v marshalled for a MIMEJSON entry.
 func JSON(v any) (json.RawMessage, error) {
 	return json.Marshal(v)
+}
+
+// Bundler is implemented by every displayable value of this package (Table,
+// Figure, Card, Progress): it returns the value's bundle or an error that
+// says what is wrong with its data.
+type Bundler interface {
+	Bundle() (Bundle, error)
+}
+
+// Bundles returns one bundle per item, in order: a value that is a table and
+// a figure at once is shown as two outputs with Bundles(table, figure). The
+// first error stops it and names the item's position.
+func Bundles(items ...Bundler) ([]Bundle, error) {
+	out := make([]Bundle, 0, len(items))
+	for i, it := range items {
+		if it == nil {
+			return nil, fmt.Errorf("display: output %d is nil; pass a table, figure, card or progress", i+1)
+		}
+		b, err := it.Bundle()
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, b)
+	}
+	return out, nil
+}
+
+// TableAndFigure returns the two outputs of a value that is both a table and
+// a figure: the table's bundle first, then the figure's.
+func TableAndFigure(t *Table, f *Figure) ([]Bundle, error) {
+	return Bundles(t, f)
 }

@@ -1,0 +1,253 @@
+package display
+
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"path/filepath"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/text"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgsvg"
+)
+
+// panelGap is the vertical space between stacked panels, in points.
+const panelGap = vg.Length(6)
+
+// textStyle is the style of all figure text at a size.
+func textStyle(size float64, bold bool) text.Style {
+	return text.Style{Color: Ink, Font: textFont(size, bold), Handler: plot.DefaultTextHandler}
+}
+
+// styleAxis gives an axis our look.
+func styleAxis(a *plot.Axis, label string, log bool) {
+	a.Label.Text = label
+	// Keep gonum's alignment and rotation of each text; set colour and font.
+	a.Label.TextStyle.Color, a.Label.TextStyle.Font = Ink, textFont(labelSize, false)
+	a.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(axisWidth)}
+	a.Tick.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(axisWidth)}
+	a.Tick.Label.Color, a.Tick.Label.Font = Ink, textFont(tickFontSize, false)
+	a.Padding = vg.Points(3)
+	if log {
+		a.Scale = plot.LogScale{}
+		a.Tick.Marker = plot.LogTicks{Prec: -1}
+	}
+}
+
+// blankTicks keeps a ticker's marks but drops their labels (upper panels
+// of a shared x axis).
+type blankTicks struct{ plot.Ticker }
+
+func (b blankTicks) Ticks(lo, hi float64) []plot.Tick {
+	ts := b.Ticker.Ticks(lo, hi)
+	for i := range ts {
+		ts[i].Label = ""
+	}
+	return ts
+}
+
+// buildPlots turns the figure's panels into gonum plots with their ranges
+// set; st comes from f.stats.
+func (f *Figure) buildPlots(st [][]seriesStats) []*plot.Plot {
+	plots := make([]*plot.Plot, len(f.Panels))
+	gx0, gx1, _, _ := panelRange(flatten(st))
+	for i, pn := range f.Panels {
+		p := plot.New()
+		p.BackgroundColor = nil // transparent: the page shows through
+		styleAxis(&p.X, pn.XLabel, pn.LogX)
+		styleAxis(&p.Y, pn.YLabel, pn.LogY)
+		x0, x1, y0, y1 := panelRange(st[i])
+		if f.SharedX {
+			x0, x1 = gx0, gx1
+			if i < len(f.Panels)-1 {
+				p.X.Label.Text = ""
+				p.X.Tick.Marker = blankTicks{p.X.Tick.Marker}
+			}
+		}
+		if !pn.LogY {
+			m := 0.04 * (y1 - y0) // keep peaks off the frame
+			y0, y1 = y0-m, y1+m
+		}
+		p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
+		f.addSeries(p, pn)
+		plots[i] = p
+	}
+	return plots
+}
+
+func flatten(st [][]seriesStats) []seriesStats {
+	var out []seriesStats
+	for _, s := range st {
+		out = append(out, s...)
+	}
+	return out
+}
+
+// addSeries adds the panel's series in order, with colours and a legend.
+func (f *Figure) addSeries(p *plot.Plot, pn Panel) {
+	p.Legend.TextStyle = textStyle(tickFontSize, false)
+	p.Legend.Top = true
+	p.Legend.ThumbnailWidth = vg.Points(18)
+	named := false
+	auto := 0
+	for _, s := range pn.Series {
+		sp := &seriesPlot{s: s, logX: pn.LogX, logY: pn.LogY}
+		switch {
+		case s.Colour > 0:
+			sp.colour = Palette[(s.Colour-1)%len(Palette)]
+		case s.Kind == HLine || s.Kind == VLine:
+			sp.colour = Ink
+		case s.Kind != Family:
+			sp.colour, sp.dash = seriesColour(auto)
+			auto++
+		}
+		p.Add(sp)
+		if s.Name != "" {
+			named = true
+			p.Legend.Add(s.Name, sp)
+		}
+	}
+	if !named || len(pn.Series) < 2 || pn.NoLegend {
+		p.Legend = plot.NewLegend() // an empty legend draws nothing
+	}
+}
+
+// draw renders the figure on a canvas of the figure's size.
+func (f *Figure) draw(cv vg.Canvas, w, h float64, plots []*plot.Plot) {
+	dc := draw.NewCanvas(cv, vg.Points(w), vg.Points(h))
+	area := draw.Crop(dc, vg.Points(4), -vg.Points(8), vg.Points(4), -vg.Points(6))
+	if f.Title != "" {
+		ts := textStyle(titleSize, true)
+		ts.XAlign, ts.YAlign = draw.XCenter, draw.YTop
+		dc.FillText(ts, vg.Point{X: area.Center().X, Y: area.Max.Y}, f.Title)
+		area.Max.Y -= ts.Rectangle(f.Title).Size().Y + vg.Points(6)
+	}
+	cs := f.panelCanvases(area, plots)
+	for i, p := range plots {
+		p.Draw(cs[i])
+	}
+}
+
+// panelCanvases slices area into one canvas per panel, by panel height,
+// and crops them so that all data areas share their left and right edges.
+func (f *Figure) panelCanvases(area draw.Canvas, plots []*plot.Plot) []draw.Canvas {
+	total := 0.0
+	for _, pn := range f.Panels {
+		total += pn.weight()
+	}
+	avail := area.Max.Y - area.Min.Y - panelGap*vg.Length(len(plots)-1)
+	cs := make([]draw.Canvas, len(plots))
+	top := area.Max.Y
+	for i, pn := range f.Panels {
+		hgt := avail * vg.Length(pn.weight()/total)
+		cs[i] = draw.Canvas{Canvas: area.Canvas, Rectangle: vg.Rectangle{
+			Min: vg.Point{X: area.Min.X, Y: top - hgt}, Max: vg.Point{X: area.Max.X, Y: top}}}
+		top -= hgt + panelGap
+	}
+	var left, right vg.Length
+	for i, p := range plots {
+		d := p.DataCanvas(cs[i])
+		left = max(left, d.Min.X-cs[i].Min.X)
+		right = max(right, cs[i].Max.X-d.Max.X)
+	}
+	for i, p := range plots {
+		d := p.DataCanvas(cs[i])
+		cs[i] = draw.Crop(cs[i], left-(d.Min.X-cs[i].Min.X), -(right - (cs[i].Max.X - d.Max.X)), 0, 0)
+	}
+	return cs
+}
+
+// WriteSVG renders the figure as SVG to w. The output depends only on the
+// figure (fonts are the ones bundled with gonum/plot and not embedded), so
+// the same figure gives the same bytes.
+func (f *Figure) WriteSVG(w io.Writer) error {
+	st, err := f.stats()
+	if err != nil {
+		return err
+	}
+	wd, ht := f.size()
+	cv := vgsvg.New(vg.Points(wd), vg.Points(ht))
+	f.draw(cv, wd, ht, f.buildPlots(st))
+	var buf bytes.Buffer
+	if _, err := cv.WriteTo(&buf); err != nil {
+		return fmt.Errorf("display: rendering SVG: %v", err)
+	}
+	_, err = w.Write(cleanSVG(buf.Bytes()))
+	return err
+}
+
+// cleanSVG replaces the back end's banner comment with our own line.
+func cleanSVG(b []byte) []byte {
+	start := bytes.Index(b, []byte("<!--"))
+	end := bytes.Index(b, []byte("-->"))
+	if start < 0 || end < start || start > 64 {
+		return b
+	}
+	return append(append(append([]byte{}, b[:start]...), "<!-- Loligo figure -->"...), b[end+3:]...)
+}
+
+// SVG returns the figure as an SVG document.
+func (f *Figure) SVG() (string, error) {
+	var b strings.Builder
+	if err := f.WriteSVG(&b); err != nil {
+		return "", err
+	}
+	return b.String(), nil
+}
+
+// PNGDPI is the resolution of PNG output: 144 dots per inch, twice the
+// nominal size, sharp on high-density screens.
+const PNGDPI = 144
+
+// WritePNG renders the figure as a PNG image with a transparent background
+// at PNGDPI to w.
+func (f *Figure) WritePNG(w io.Writer) error {
+	st, err := f.stats()
+	if err != nil {
+		return err
+	}
+	wd, ht := f.size()
+	cv := vgimg.NewWith(vgimg.UseWH(vg.Points(wd), vg.Points(ht)), vgimg.UseDPI(PNGDPI), vgimg.UseBackgroundColor(transparent))
+	f.draw(cv, wd, ht, f.buildPlots(st))
+	if _, err := (vgimg.PngCanvas{Canvas: cv}).WriteTo(w); err != nil {
+		return fmt.Errorf("display: rendering PNG: %v", err)
+	}
+	return nil
+}
+
+// SaveSVG writes the figure as SVG at path, atomically (temporary file in
+// the same folder, then rename). The folder must exist and be writable.
+func (f *Figure) SaveSVG(path string) error { return writeFileAtomic(path, f.WriteSVG) }
+
+// SavePNG writes the figure as PNG at path, atomically.
+func (f *Figure) SavePNG(path string) error { return writeFileAtomic(path, f.WritePNG) }
+
+// Save writes the figure in the format its extension names: .svg or .png.
+func (f *Figure) Save(path string) error {
+	switch strings.ToLower(filepath.Ext(path)) {
+	case ".svg":
+		return f.SaveSVG(path)
+	case ".png":
+		return f.SavePNG(path)
+	}
+	return fmt.Errorf("display: cannot save a figure as %q: unknown extension %q; use .svg or .png", path, filepath.Ext(path))
+}
+
+// Bundle returns the figure's output: image/svg+xml, a text/plain
+// description (see Summary) and metadata giving the SVG's display width
+// and height in points. It has no text/html entry.
+func (f *Figure) Bundle() (Bundle, error) {
+	svg, err := f.SVG()
+	if err != nil {
+		return Bundle{}, err
+	}
+	w, h := f.size()
+	return Bundle{
+		Data:     map[string]any{MIMESVG: svg, MIMEText: f.Summary()},
+		Metadata: map[string]any{MIMESVG: map[string]any{"width": w, "height": h}},
+	}, nil
+}
