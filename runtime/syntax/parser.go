@@ -254,6 +254,9 @@ func (p *parser) endStmt() {
 		msg = fmt.Sprintf("unexpected %s after the end of the statement; put each statement on its own line", describe(p.tok))
 	}
 	p.errorAt(p.tok.Pos, msg)
+	// Start afresh on the next line: a bracket left open by the bad
+	// statement must not swallow the rest of the cell.
+	p.depth = 0
 	for p.tok.Tok != NEWLINE && p.tok.Tok != EOF {
 		p.next()
 	}
