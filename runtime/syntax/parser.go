@@ -34,8 +34,11 @@ func ParseExpr(src string) (x Expr, err error) {
 	defer func() {
 		p.recover(recover())
 		if x == nil {
-			end := Pos{Offset: len(src), Line: p.sc.line, Col: p.sc.col}
-			x = &BadExpr{From: Pos{Line: 1, Col: 1}, To: end}
+			start, end := Pos{Line: 1, Col: 1}, p.tok.Pos // end: where it stopped
+			if !end.IsValid() {
+				end = start
+			}
+			x = &BadExpr{From: start, To: end}
 		}
 		err = p.errs.Err()
 	}()
