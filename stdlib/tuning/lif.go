@@ -58,14 +58,20 @@ func LIFRateDeriv(v, tauRef, tauM float64) float64 {
 //
 //	v = 1 / (1 − exp((tauRef − 1/rate)/tauM)).
 //
-// It returns an error for a rate outside that interval.
+// It returns an error for a rate outside that interval, or one so low that
+// v − 1 would round to 0 (about 1.4 Hz for τ_ref = 2 ms, τ_m = 20 ms).
 func LIFInverse(rate, tauRef, tauM float64) (float64, error) {
 	if !(rate > 0) || !(rate*tauRef < 1) {
 		return 0, fmt.Errorf("tuning: rate must lie in (0, 1/τ_ref) = (0, %g) Hz, got %g Hz; lower it or shorten τ_ref", 1/tauRef, rate)
 	}
 	// −expm1(x) = 1 − e^x without cancellation for x near 0 (rates near
 	// 1/τ_ref).
-	return 1 / -math.Expm1((tauRef-1/rate)/tauM), nil
+	v := 1 / -math.Expm1((tauRef-1/rate)/tauM)
+	if !(v > 1) {
+		return 0, fmt.Errorf("tuning: rate %g Hz is too low to resolve: its input lies within float64 rounding of the rheobase (v − 1 < 2.2e-16); use a rate above %.3g Hz",
+			rate, LIFRate(math.Nextafter(1, 2), tauRef, tauM))
+	}
+	return v, nil
 }
 
 // Rheobase returns the threshold current I_th = (vth − el)/r in amperes for
