@@ -51,7 +51,7 @@ func (t *Table) HTML() (string, error) {
 		for j, c := range t.Columns {
 			s := cells[j][k]
 			if c.Kind == NumberColumn {
-				s = strings.Replace(s, "-", "−", 1) // a true minus sign reads better
+				s = strings.ReplaceAll(s, "-", "−") // a true minus sign reads better
 			}
 			b.WriteString(`<td style="` + styleTD + ";text-align:" + align(c) + `">` + html.EscapeString(s) + "</td>")
 		}
