@@ -87,8 +87,8 @@ func TestLIFRateNearOne(t *testing.T) {
 }
 
 // TestLIFRateDeriv compares the analytic slope with central differences,
-// h = 1e-6·v: truncation h²r'''/6 and rounding ulp·r/h are both below
-// 1e-6 relative for v ≥ 1.01 (where r''' stays moderate), so 1e-6 rel.
+// h = 1e-6·v: truncation h²r”'/6 and rounding ulp·r/h are both below
+// 1e-6 relative for v ≥ 1.01 (where r”' stays moderate), so 1e-6 rel.
 func TestLIFRateDeriv(t *testing.T) {
 	t.Parallel()
 	for _, v := range []float64{1.01, 1.1, 1.5, 1.99, 2, 2.01, 3, 10, 100, 1e4} {
