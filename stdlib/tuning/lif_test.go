@@ -39,7 +39,7 @@ func TestLIFRateValues(t *testing.T) {
 		abs, rel float64
 	}{
 		// Common practice: τ_ref = 2 ms, τ_m = 20 ms gives about 63 Hz at
-		// v = 2; exactly 1/(0.002 + 0.02 ln 2) = 63.0497… Hz. Tolerance:
+		// v = 2; exactly 1/(0.002 + 0.02 ln 2) = 63.0401… Hz. Tolerance:
 		// a few roundings, 8 ulps.
 		{"v = 2, about 63 Hz", 2, 1 / (0.002 + 0.02*math.Ln2), 0, 8 * ulp},
 		{"v = 2 is near 63 Hz (common practice)", 2, 63, 0.1, 0},

@@ -50,7 +50,7 @@ func TestPopulationDraws(t *testing.T) {
 	if r.Gain[0] == p.Gain[0] {
 		t.Error("different seeds gave the same first gain")
 	}
-	// GainBias at a max rate of 63.0497 Hz and intercept 0: v_max = 2
+	// GainBias at a max rate of 63.04 Hz and intercept 0: v_max = 2
 	// (the common-practice value of TestLIFRateValues), so gain 1, bias 1.
 	g, b, err := GainBias(LIFRate(2, tauRef, tauM), 0, tauRef, tauM)
 	if err != nil {
