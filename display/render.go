@@ -55,6 +55,7 @@ func (b blankTicks) Ticks(lo, hi float64) []plot.Tick {
 func (f *Figure) buildPlots(st [][]seriesStats) []*plot.Plot {
 	plots := make([]*plot.Plot, len(f.Panels))
 	gx0, gx1, _, _ := panelRange(flatten(st))
+	auto := 0 // colours run on across panels: a stimulus beneath a trace gets its own
 	for i, pn := range f.Panels {
 		p := plot.New()
 		p.BackgroundColor = nil // transparent: the page shows through
@@ -73,7 +74,7 @@ func (f *Figure) buildPlots(st [][]seriesStats) []*plot.Plot {
 			y0, y1 = y0-m, y1+m
 		}
 		p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
-		f.addSeries(p, pn)
+		auto = f.addSeries(p, pn, auto)
 		plots[i] = p
 	}
 	return plots
@@ -87,13 +88,14 @@ func flatten(st [][]seriesStats) []seriesStats {
 	return out
 }
 
-// addSeries adds the panel's series in order, with colours and a legend.
-func (f *Figure) addSeries(p *plot.Plot, pn Panel) {
+// addSeries adds the panel's series in order, with colours and a legend;
+// auto is the number of automatic colours used so far, and the new count
+// is returned.
+func (f *Figure) addSeries(p *plot.Plot, pn Panel, auto int) int {
 	p.Legend.TextStyle = textStyle(tickFontSize, false)
 	p.Legend.Top = true
 	p.Legend.ThumbnailWidth = vg.Points(18)
 	named := false
-	auto := 0
 	for _, s := range pn.Series {
 		sp := &seriesPlot{s: s, logX: pn.LogX, logY: pn.LogY}
 		switch {
@@ -114,22 +116,29 @@ func (f *Figure) addSeries(p *plot.Plot, pn Panel) {
 	if !named || len(pn.Series) < 2 || pn.NoLegend {
 		p.Legend = plot.NewLegend() // an empty legend draws nothing
 	}
+	return auto
 }
 
 // draw renders the figure on a canvas of the figure's size.
 func (f *Figure) draw(cv vg.Canvas, w, h float64, plots []*plot.Plot) {
 	dc := draw.NewCanvas(cv, vg.Points(w), vg.Points(h))
+	for i, c := range f.layout(dc, plots, true) {
+		plots[i].Draw(c)
+	}
+}
+
+// layout returns each panel's canvas, drawing the title when asked.
+func (f *Figure) layout(dc draw.Canvas, plots []*plot.Plot, drawTitle bool) []draw.Canvas {
 	area := draw.Crop(dc, vg.Points(4), -vg.Points(8), vg.Points(4), -vg.Points(6))
 	if f.Title != "" {
 		ts := textStyle(titleSize, true)
 		ts.XAlign, ts.YAlign = draw.XCenter, draw.YTop
-		dc.FillText(ts, vg.Point{X: area.Center().X, Y: area.Max.Y}, f.Title)
+		if drawTitle {
+			dc.FillText(ts, vg.Point{X: area.Center().X, Y: area.Max.Y}, f.Title)
+		}
 		area.Max.Y -= ts.Rectangle(f.Title).Size().Y + vg.Points(6)
 	}
-	cs := f.panelCanvases(area, plots)
-	for i, p := range plots {
-		p.Draw(cs[i])
-	}
+	return f.panelCanvases(area, plots)
 }
 
 // panelCanvases slices area into one canvas per panel, by panel height,
