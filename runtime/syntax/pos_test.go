@@ -30,6 +30,47 @@ func posOf(src string, off int) Pos {
 	return p
 }
 
+// posTable returns posOf(src, i) for every offset i from 0 to len(src), in
+// one pass (the fuzz test checks thousands of nodes per input). An offset
+// inside a multi-byte character gets, like posOf, the line and column just
+// after that character.
+func posTable(src string) []Pos {
+	table := make([]Pos, len(src)+1)
+	line, col, i := 1, 1, 0
+	if strings.HasPrefix(src, "\uFEFF") {
+		for ; i < 3; i++ {
+			table[i] = Pos{Offset: i, Line: 1, Col: 1}
+		}
+	}
+	for i < len(src) {
+		table[i] = Pos{Offset: i, Line: line, Col: col}
+		r, w := utf8.DecodeRuneInString(src[i:])
+		if r == '\n' {
+			line, col = line+1, 1
+		} else {
+			col++
+		}
+		for k := 1; k < w; k++ {
+			table[i+k] = Pos{Offset: i + k, Line: line, Col: col}
+		}
+		i += w
+	}
+	table[len(src)] = Pos{Offset: len(src), Line: line, Col: col}
+	return table
+}
+
+func TestPosTable(t *testing.T) {
+	t.Parallel()
+	for _, src := range []string{"", "a\nbµc\n", "\uFEFFx\xffé", "\n\n"} {
+		table := posTable(src)
+		for off := range table {
+			if table[off] != posOf(src, off) {
+				t.Errorf("posTable(%q)[%d] = %+v, posOf = %+v", src, off, table[off], posOf(src, off))
+			}
+		}
+	}
+}
+
 // allNodes returns every node of f.
 func allNodes(f *File) []Node {
 	var out []Node
@@ -45,13 +86,14 @@ func allNodes(f *File) []Node {
 // checkSpans reports any node whose span is not inside src, runs
 // backwards, or whose line and column disagree with its offset.
 func checkSpans(src string, nodes []Node) error {
+	table := posTable(src)
 	for _, n := range nodes {
 		p, e := n.Pos(), n.End()
 		if p.Offset < 0 || e.Offset > len(src) || p.Offset > e.Offset {
 			return fmt.Errorf("%s: span %d..%d outside 0..%d or reversed", Format(n), p.Offset, e.Offset, len(src))
 		}
 		for _, q := range []Pos{p, e} {
-			if want := posOf(src, q.Offset); q != want {
+			if want := table[q.Offset]; q != want {
 				return fmt.Errorf("%s: position %+v, but offset %d is at %d:%d", Format(n), q, q.Offset, want.Line, want.Col)
 			}
 		}
