@@ -371,7 +371,7 @@ func helpBuiltin(r *Registry) *Builtin {
 			case *Formula:
 				return Doc{f.Name, f.String() + "\n\nvariables: " + strings.Join(f.Vars, ", ") + "\nparameters: " + strings.Join(f.Params, ", ") + "\n"}, nil
 			case Helper:
-				return Doc{f.Type(), f.Help()}, nil
+				return Doc{c.Value("f").Type(), f.Help()}, nil
 			default:
 				return Doc{f.Type(), fmt.Sprintf("%s: %s", f.Type(), f.String())}, nil
 			}

@@ -171,7 +171,7 @@ func (s *Session) parseUnit(text string) (units.Unit, error) {
 	}
 	u, err := units.Parse(text)
 	if err != nil {
-		return u, err
+		return u, errors.New(strings.TrimPrefix(err.Error(), "units: "))
 	}
 	s.unitMu.Lock()
 	s.unitCache[text] = u

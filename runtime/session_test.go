@@ -128,7 +128,7 @@ func TestErrorTracebackHasCaret(t *testing.T) {
 
 func TestComplete(t *testing.T) {
 	s := NewSession(testRegistry())
-	if _, err := s.Execute(context.Background(), "cell", "m = cell_model()\nmembrane = 1", nil); err != nil {
+	if _, err := s.Execute(context.Background(), "cell", "m = cell_model()\nmembrane = 1\nµ1 = 2", nil); err != nil {
 		t.Fatal(err)
 	}
 	cases := []struct {
@@ -142,7 +142,7 @@ func TestComplete(t *testing.T) {
 		{"cell_model(tau_", "tau_ref", 11, 15},
 		{"y = 20 m", "ms", 7, 8},
 		{"y = 20 ms in u", "us", 13, 14},
-		{"µ = 1\nlen(µ", "µ", 10, 11},
+		{"x = 1\nlen(µ", "µ1", 10, 11},
 	}
 	for _, c := range cases {
 		got := s.Complete(c.code, len([]rune(c.code)))
