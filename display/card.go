@@ -61,6 +61,7 @@ func (c *Card) Text() (string, error) {
 	}
 	if len(c.Params) > 0 {
 		t, _ := c.paramTable(func(s string) string { return latexText(s) }).Text()
+		t = t[:strings.LastIndex(t, "\n")] // the size footer says nothing here
 		b.WriteString(t + "\n")
 	}
 	if c.Source != "" {

@@ -96,10 +96,10 @@ func FormatNumber(x float64, digits int) string {
 	}
 	a := math.Abs(x)
 	var s string
-	if x == math.Trunc(x) && a < 1e9 {
+	if x == math.Trunc(x) && a < 1e6 {
 		return strings.Replace(groupThousands(strconv.FormatFloat(x, 'f', 0, 64)), "-", "−", 1)
 	}
-	if a != 0 && (a >= 1e9 || a < 1e-4) {
+	if a != 0 && (a >= 1e6 || a < 1e-4) {
 		s = strconv.FormatFloat(x, 'e', digits-1, 64)
 		mant, exp, _ := strings.Cut(s, "e")
 		if strings.Contains(mant, ".") {

@@ -225,7 +225,9 @@ func (t *Table) Text() (string, error) {
 			}
 			b.WriteString(pad(get(j), widths[j], c.Kind == NumberColumn))
 		}
-		b.WriteString("\n")
+		trimmed := strings.TrimRight(b.String(), " ") // no trailing blanks
+		b.Reset()
+		b.WriteString(trimmed + "\n")
 	}
 	line(func(j int) string { return t.Columns[j].Header() })
 	line(func(j int) string { return strings.Repeat("-", widths[j]) })
