@@ -228,10 +228,12 @@ func closest(s string, names []string) (string, bool) {
 	return best, bestD <= limit
 }
 
-// editDistance is the Levenshtein distance between a and b, in runes.
+// editDistance is the optimal-string-alignment distance between a and b, in
+// runes: Levenshtein's insertions, deletions and substitutions plus swaps of
+// two neighbouring characters (Damerau 1964), the commonest typing slips.
 func editDistance(a, b string) int {
 	ra, rb := []rune(a), []rune(b)
-	prev, cur := make([]int, len(rb)+1), make([]int, len(rb)+1)
+	pp, prev, cur := make([]int, len(rb)+1), make([]int, len(rb)+1), make([]int, len(rb)+1)
 	for j := range prev {
 		prev[j] = j
 	}
@@ -243,8 +245,11 @@ func editDistance(a, b string) int {
 				cost = 0
 			}
 			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+			if i > 1 && j > 1 && ra[i-1] == rb[j-2] && ra[i-2] == rb[j-1] {
+				cur[j] = min(cur[j], pp[j-2]+1)
+			}
 		}
-		prev, cur = cur, prev
+		pp, prev, cur = prev, cur, pp
 	}
 	return prev[len(rb)]
 }
