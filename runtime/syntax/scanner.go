@@ -232,6 +232,11 @@ func (s *scanner) scanIdent() Token {
 	for isIdentChar(s.ch) {
 		s.next()
 	}
+	// Keywords are 2 to 7 lower-case ASCII letters: test that before the
+	// map lookup, which most names (units above all) then skip.
+	if n := s.off - start; n < 2 || n > 7 || s.src[start] < 'a' || s.src[start] > 't' {
+		return IDENT
+	}
 	if tok, ok := Keywords[s.src[start:s.off]]; ok {
 		return tok
 	}
