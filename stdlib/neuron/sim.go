@@ -204,9 +204,9 @@ func (sm *sim) fire(t float64, y []float64) error {
 	return sm.spike(t)
 }
 
-// cancelled returns ctx.Err() every checkEvery steps.
+// cancelled returns ctx.Err() at step 1 and every checkEvery steps after.
 func cancelled(ctx context.Context, step int) error {
-	if step%checkEvery != 0 {
+	if step%checkEvery != 1 {
 		return nil
 	}
 	return ctx.Err()
