@@ -128,8 +128,25 @@ func newStats() seriesStats {
 	return seriesStats{xmin: math.Inf(1), xmax: math.Inf(-1), ymin: math.Inf(1), ymax: math.Inf(-1)}
 }
 
-func (s *seriesStats) addX(x float64) { s.xmin, s.xmax = math.Min(s.xmin, x), math.Max(s.xmax, x) }
-func (s *seriesStats) addY(y float64) { s.ymin, s.ymax = math.Min(s.ymin, y), math.Max(s.ymax, y) }
+// addX and addY widen the ranges by a finite value (plain comparisons:
+// math.Min's NaN handling is not needed and costs a third of a 1 M trace).
+func (s *seriesStats) addX(x float64) {
+	if x < s.xmin {
+		s.xmin = x
+	}
+	if x > s.xmax {
+		s.xmax = x
+	}
+}
+
+func (s *seriesStats) addY(y float64) {
+	if y < s.ymin {
+		s.ymin = y
+	}
+	if y > s.ymax {
+		s.ymax = y
+	}
+}
 
 // usable reports whether v can be drawn on an axis (finite, and positive
 // on a log axis).
