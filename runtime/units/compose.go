@@ -98,8 +98,9 @@ func render(piece string, k int, rest Dim) string {
 }
 
 // selectKth returns the k-th smallest element of x (k from 0), reordering x.
-// It is a quickselect with a median-of-three pivot, falling back to a sort
-// of the remaining range if the partitions keep coming out lopsided, so the
+// It is a quickselect with a median-of-three pivot and a three-way partition,
+// so runs of equal values (common in recorded traces) cost one pass; if the
+// partitions keep coming out lopsided it sorts the remaining range, so the
 // worst case stays O(n log n).
 func selectKth(x []float64, k int) float64 {
 	lo, hi := 0, len(x)-1
@@ -108,12 +109,12 @@ func selectKth(x []float64, k int) float64 {
 			slices.Sort(x[lo : hi+1])
 			break
 		}
-		p := partition(x, lo, hi)
+		lt, gt := partition3(x, lo, hi)
 		switch {
-		case k < p:
-			hi = p - 1
-		case k > p:
-			lo = p + 1
+		case k < lt:
+			hi = lt - 1
+		case k > gt:
+			lo = gt + 1
 		default:
 			return x[k]
 		}
@@ -121,29 +122,27 @@ func selectKth(x []float64, k int) float64 {
 	return x[k]
 }
 
-// partition orders x[lo..hi] around a median-of-three pivot and returns the
-// pivot's final index (Lomuto's scheme).
-func partition(x []float64, lo, hi int) int {
-	mid := lo + (hi-lo)/2
-	if x[mid] < x[lo] {
-		x[mid], x[lo] = x[lo], x[mid]
-	}
-	if x[hi] < x[lo] {
-		x[hi], x[lo] = x[lo], x[hi]
-	}
-	if x[mid] < x[hi] {
-		x[mid], x[hi] = x[hi], x[mid]
-	}
-	pivot := x[hi] // now the median of the three
-	i := lo
-	for j := lo; j < hi; j++ {
-		if x[j] < pivot {
-			x[i], x[j] = x[j], x[i]
+// partition3 orders x[lo..hi] around a median-of-three pivot into values
+// below it, equal to it (x[lt..gt]) and above it (Dijkstra's three-way
+// partition), and returns lt and gt.
+func partition3(x []float64, lo, hi int) (lt, gt int) {
+	a, b, c := x[lo], x[lo+(hi-lo)/2], x[hi]
+	pivot := max(min(a, b), min(max(a, b), c))
+	lt, gt = lo, hi
+	for i := lo; i <= gt; {
+		switch v := x[i]; {
+		case v < pivot:
+			x[lt], x[i] = v, x[lt]
+			lt++
+			i++
+		case v > pivot:
+			x[gt], x[i] = v, x[gt]
+			gt--
+		default:
 			i++
 		}
 	}
-	x[i], x[hi] = x[hi], x[i]
-	return i
+	return lt, gt
 }
 
 func bitLen(n int) int {
