@@ -81,15 +81,38 @@ func vtrap(x float64) float64 {
 	return x / -math.Expm1(-x)
 }
 
-// rates returns α and β for m, h, n at v (mV), in 1/ms at 6.3 °C.
+// hhRates returns α and β for m, h, n at v (mV), in 1/ms at 6.3 °C. The exponentials
+// come from two calls to math.Exp: with u = e^{−(V+65)/720}, e^{−(V+65)/80} = u⁹,
+// e^{−(V+65)/20} = u³⁶ and e^{−(V+65)/18} = u⁴⁰ (relative error below 1e-13), and
+// e^{−(V+35)/10}, e^{−(V+55)/10} are e^{−(V+40)/10} times a constant.
 func hhRates(v float64) (am, bm, ah, bh, an, bn float64) {
-	am = vtrap((v + 40) / 10)
-	bm = 4 * math.Exp(-(v+65)/18)
-	ah = 0.07 * math.Exp(-(v+65)/20)
-	bh = 1 / (1 + math.Exp(-(v+35)/10))
-	an = 0.1 * vtrap((v+55)/10)
-	bn = 0.125 * math.Exp(-(v+65)/80)
+	u := math.Exp(-(v + 65) / 720)
+	u2 := u * u
+	u4 := u2 * u2
+	u9 := u4 * u4 * u
+	u18 := u9 * u9
+	u36 := u18 * u18
+	bm = 4 * u36 * u4
+	ah = 0.07 * u36
+	bn = 0.125 * u9
+	xm := (v + 40) / 10
+	em := math.Exp(-xm) // e^{−(V+40)/10}
+	am = trap(xm, em)
+	bh = 1 / (1 + em*expHalf)
+	an = 0.1 * trap(xm+1.5, em*expMinus1p5)
 	return
+}
+
+// expHalf and expMinus1p5 shift e^{−(V+40)/10} to e^{−(V+35)/10} and e^{−(V+55)/10}.
+var expHalf, expMinus1p5 = math.Exp(0.5), math.Exp(-1.5)
+
+// trap returns x/(1 − e^{−x}) given e = e^{−x}; near x = 0, where 1 − e cancels, it
+// uses vtrap (series or expm1).
+func trap(x, e float64) float64 {
+	if math.Abs(x) < 0.1 {
+		return vtrap(x)
+	}
+	return x / (1 - e)
 }
 
 // phi returns the Q10 rate factor 3^((T − 6.3)/10).
