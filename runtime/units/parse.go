@@ -22,7 +22,8 @@ type Error struct {
 func (e *Error) Error() string { return "units: " + e.Msg }
 
 // Parse reads a unit: a name with an optional prefix ("ms", "uA", "MOhm"),
-// raised to an optional integer power ("cm^2", "s^-1"), such atoms joined
+// raised to an optional integer power ("cm^2", "s^-1", or "cm²" in
+// superscripts), such atoms joined
 // with "/" and "*" (or "·") from left to right, so that "mV/ms/cm" is
 // mV·ms⁻¹·cm⁻¹, and optionally a leading "1/" as in "1/ms". Spaces around
 // operators are ignored. A power applies to the prefixed atom: "cm^2" is
@@ -178,13 +179,26 @@ func (p *parser) term(sign int) error {
 	return nil
 }
 
-// exponent reads an optional "^n" with an optional sign; n is 1 without it.
+// exponent reads an optional power: "^n" with an optional sign and spaces
+// around the caret ("cm ^ 2"), or superscript digits as pasted from a paper
+// ("cm²", "s⁻¹"). Without one the power is 1.
 func (p *parser) exponent() (int, error) {
-	if p.pos == len(p.text) || p.text[p.pos] != '^' {
-		return 1, nil
+	back := p.pos
+	p.skipSpace()
+	if p.pos < len(p.text) && p.text[p.pos] == '^' {
+		return p.caretPower()
 	}
+	p.pos = back
+	if r, _ := utf8.DecodeRuneInString(p.text[p.pos:]); r == '⁻' || r == '⁺' || superDigit(r) >= 0 {
+		return p.superPower()
+	}
+	return 1, nil
+}
+
+func (p *parser) caretPower() (int, error) {
 	at := p.pos
 	p.pos++
+	p.skipSpace()
 	neg := false
 	if p.pos < len(p.text) && (p.text[p.pos] == '-' || p.text[p.pos] == '+') {
 		neg = p.text[p.pos] == '-'
@@ -199,13 +213,66 @@ func (p *parser) exponent() (int, error) {
 	}
 	n, err := strconv.Atoi(p.text[start:p.pos])
 	if err != nil || n > 127 {
-		return 0, &Error{Text: p.text, Offset: start, Msg: "exponent " + p.text[start:p.pos] + " in " + strconv.Quote(p.text) +
-			" is too large; an exponent must lie between -127 and 127"}
+		return 0, p.tooLarge(start, p.text[start:p.pos])
 	}
 	if neg {
 		n = -n
 	}
 	return n, nil
+}
+
+func (p *parser) superPower() (int, error) {
+	start := p.pos
+	r, size := utf8.DecodeRuneInString(p.text[p.pos:])
+	neg := r == '⁻'
+	if r == '⁻' || r == '⁺' {
+		p.pos += size
+	}
+	n, digits := 0, 0
+	for p.pos < len(p.text) {
+		r, size := utf8.DecodeRuneInString(p.text[p.pos:])
+		v := superDigit(r)
+		if v < 0 {
+			break
+		}
+		p.pos += size
+		if digits++; n <= 127 {
+			n = 10*n + v
+		}
+	}
+	if digits == 0 {
+		return 0, &Error{Text: p.text, Offset: start, Msg: "expected superscript digits after the superscript sign in " +
+			strconv.Quote(p.text) + ", or write the power as s^-1"}
+	}
+	if n > 127 {
+		return 0, p.tooLarge(start, p.text[start:p.pos])
+	}
+	if neg {
+		n = -n
+	}
+	return n, nil
+}
+
+// superDigit returns the value of a superscript digit, or -1.
+func superDigit(r rune) int {
+	switch {
+	case r == '⁰':
+		return 0
+	case r == '¹':
+		return 1
+	case r == '²':
+		return 2
+	case r == '³':
+		return 3
+	case r >= '⁴' && r <= '⁹':
+		return int(r-'⁴') + 4
+	}
+	return -1
+}
+
+func (p *parser) tooLarge(off int, exp string) error {
+	return &Error{Text: p.text, Offset: off, Msg: "exponent " + exp + " in " + strconv.Quote(p.text) +
+		" is too large; an exponent must lie between -127 and 127"}
 }
 
 // result finishes the unit, checking that the scale is a usable float64.

@@ -146,6 +146,10 @@ func TestCompounds(t *testing.T) {
 		{" mV / ms ", "mV/ms", 1, Voltage.Div(Time)},
 		{"kΩ·cm^2", "kΩ·cm^2", 1e-1, SpecificResistance}, // 1e3 Ω · 1e-4 m²
 		{"m^2·kg·s^-3·A^-1", "m^2·kg·s^-3·A^-1", 1, Voltage},
+		{" mS / cm ^ 2", "mS/cm^2", 10, ConductanceDensity},
+		{"µA/cm²", "µA/cm^2", 1e-2, CurrentDensity}, // superscripts as pasted
+		{"s⁻¹", "s^-1", 1, Frequency},
+		{"m¹⁰/m⁹", "m^10/m^9", 1, Length},
 		{"1", "1", 1, Dimensionless},
 		{"m/m", "m/m", 1, Dimensionless},
 	}
@@ -220,6 +224,9 @@ func TestParseErrors(t *testing.T) {
 		{"1.5/s", "unexpected number", "", 0},
 		{"10/s", "unexpected number", "", 0},
 		{"Tm^40", "beyond the range of float64", "", 0},
+		{"m⁻", "expected superscript digits", "", 1},
+		{"m¹²⁸", "too large", "", 1},
+		{"m^ ", "expected an integer after ^", "", 1},
 	}
 	for _, c := range cases {
 		_, err := Parse(c.text)
