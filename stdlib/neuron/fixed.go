@@ -151,6 +151,7 @@ func cubicRoot(y0, d0, y1, d1, c float64) float64 {
 // runExact integrates a LIF model in closed form.
 func (sm *sim) runExact(ctx context.Context) error {
 	tau, vth, vreset, vinf := sm.m.(exactLIF).lif()
+	sm.tau = tau
 	decay := math.Exp(-sm.dt / tau)
 	sm.record(0, 0, sm.y)
 	for k := 1; k <= sm.n; k++ {
@@ -158,6 +159,7 @@ func (sm *sim) runExact(ctx context.Context) error {
 			return err
 		}
 		a, b := sm.gridTime(k-1), sm.gridTime(k)
+		ga, full := a, k < sm.n || sm.dur-float64(sm.n-1)*sm.dt == sm.dt
 		for a < b {
 			e := sm.segment(a, b)
 			if e <= a {
@@ -168,7 +170,11 @@ func (sm *sim) runExact(ctx context.Context) error {
 				in = sm.in.At(0.5 * (a + e)) // midpoint: second order for smooth inputs
 			}
 			var err error
-			if a, err = sm.exactSub(a, e, in, tau, vth, vreset, vinf(in), decay); err != nil {
+			d := decay // a whole grid step uses the precomputed exp(−dt/τ)
+			if !full || a != ga || e != b {
+				d = math.Exp(-(e - a) / tau)
+			}
+			if a, err = sm.exactSub(a, e, vth, vreset, vinf(in), d); err != nil {
 				return err
 			}
 		}
@@ -179,16 +185,13 @@ func (sm *sim) runExact(ctx context.Context) error {
 }
 
 // exactSub advances V over [a, e] at constant input and returns where it stopped.
-func (sm *sim) exactSub(a, e, in, tau, vth, vreset, vi, decay float64) (float64, error) {
+// d is exp(−(e − a)/τ).
+func (sm *sim) exactSub(a, e, vth, vreset, vi, d float64) (float64, error) {
 	if sm.refractory(a) {
 		sm.y[0] = vreset
 		return e, nil
 	}
 	v := sm.y[0]
-	d := decay
-	if h := e - a; h != sm.dt {
-		d = math.Exp(-h / tau)
-	}
 	v1 := vi + (v-vi)*d
 	if math.IsNaN(v1) || math.IsInf(v1, 0) {
 		return e, sm.checkFiniteState(e, []float64{v1})
@@ -199,7 +202,7 @@ func (sm *sim) exactSub(a, e, in, tau, vth, vreset, vi, decay float64) (float64,
 	}
 	ts := a
 	if vi > vth && v < vth {
-		ts = math.Min(a+tau*math.Log((v-vi)/(vth-vi)), e)
+		ts = math.Min(a+sm.tau*math.Log((v-vi)/(vth-vi)), e)
 	}
 	sm.y[0] = vreset
 	return ts, sm.fire(ts, sm.y)

@@ -86,7 +86,7 @@ func vtrap(x float64) float64 {
 // e^{−(V+65)/20} = u³⁶ and e^{−(V+65)/18} = u⁴⁰ (relative error below 1e-13), and
 // e^{−(V+35)/10}, e^{−(V+55)/10} are e^{−(V+40)/10} times a constant.
 func hhRates(v float64) (am, bm, ah, bh, an, bn float64) {
-	u := math.Exp(-(v + 65) / 720)
+	u := math.Exp(-(v + 65) * (1.0 / 720))
 	u2 := u * u
 	u4 := u2 * u2
 	u9 := u4 * u4 * u
@@ -95,7 +95,7 @@ func hhRates(v float64) (am, bm, ah, bh, an, bn float64) {
 	bm = 4 * u36 * u4
 	ah = 0.07 * u36
 	bn = 0.125 * u9
-	xm := (v + 40) / 10
+	xm := (v + 40) * 0.1
 	em := math.Exp(-xm) // e^{−(V+40)/10}
 	am = trap(xm, em)
 	bh = 1 / (1 + em*expHalf)

@@ -23,7 +23,7 @@ func (c *chunk) run(ctx context.Context) error {
 			c.setInput(sc.values[next])
 			next++
 		}
-		if next < len(sc.times) && sc.times[next] < b || b-a != sc.dt {
+		if next < len(sc.times) && sc.times[next] < b || (k == sc.n-1 && !sc.lastFull()) {
 			next = c.splitStep(a, b, next)
 			continue
 		}
@@ -31,6 +31,9 @@ func (c *chunk) run(ctx context.Context) error {
 	}
 	return nil
 }
+
+// lastFull reports whether the last grid step has the full length dt.
+func (sc *schedule) lastFull() bool { return sc.dur-float64(sc.n-1)*sc.dt == sc.dt }
 
 // setInput moves every neuron to a new shared input I, keeping V continuous.
 func (c *chunk) setInput(in float64) {

@@ -31,6 +31,7 @@ type sim struct {
 	refEnd float64 // end of the refractory period, s
 	next   float64 // next input change (piecewise inputs)
 	inA    float64 // input on the current piecewise interval
+	tau    float64 // membrane time constant (Exact method)
 }
 
 // zeroInput is the input used when Problem.Input is nil.
