@@ -73,6 +73,16 @@ func (o *textOutput) Display(b display.Bundle, id string, update bool) {
 	fmt.Fprintln(o.stdout, b.PlainText())
 }
 
+// ProgressLine redraws one status line on stderr, where it does not mix
+// with the results on stdout.
+func (o *textOutput) ProgressLine(text string, final bool) {
+	end := ""
+	if final {
+		end = "\n"
+	}
+	fmt.Fprintf(o.stderr, "\r\033[K%s%s", text, end)
+}
+
 func (o *textOutput) Stream(name, text string) {
 	if name == "stderr" {
 		fmt.Fprint(o.stderr, text)

@@ -299,3 +299,24 @@ func (c *Call) index(name string) int {
 	}
 	panic("runtime: builtin " + c.Builtin.Name + " has no parameter " + name)
 }
+
+// LineOutput is implemented by outputs that show progress as lines of text
+// (a terminal runner) instead of updating a display in place.
+type LineOutput interface {
+	ProgressLine(text string, final bool)
+}
+
+// Terminal reports whether the cell's output is a terminal: progress should
+// then go to ProgressLine, and in-place display updates are not shown.
+func (c *Call) Terminal() bool {
+	_, ok := c.out.(LineOutput)
+	return ok
+}
+
+// ProgressLine shows one progress line on a terminal output (a no-op on
+// other outputs); final ends the line.
+func (c *Call) ProgressLine(text string, final bool) {
+	if lo, ok := c.out.(LineOutput); ok {
+		lo.ProgressLine(text, final)
+	}
+}
