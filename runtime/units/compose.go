@@ -4,6 +4,8 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"sync"
+	"sync/atomic"
 )
 
 // pieces are the coherent derived units a dimension without a name may be
@@ -24,6 +26,27 @@ func composedSymbol(d Dim) string {
 	if d.IsDimensionless() {
 		return ""
 	}
+	if s, ok := composedCache.Load(d); ok {
+		return s.(string)
+	}
+	s := compose(d)
+	if composedCount.Add(1) <= maxComposed {
+		composedCache.Store(d, s)
+	}
+	return s
+}
+
+// composedCache keeps the symbols of unnamed dimensions already seen, since
+// Format is on the display path of every number; it stops growing after
+// maxComposed entries, which no real session reaches.
+var (
+	composedCache sync.Map // Dim → string
+	composedCount atomic.Int64
+)
+
+const maxComposed = 4096
+
+func compose(d Dim) string {
 	bestSym, bestK, bestRest := "", 0, d
 	bestCost := cost(d)
 	for _, pc := range pieces {

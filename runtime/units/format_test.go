@@ -108,6 +108,17 @@ func TestFormat(t *testing.T) {
 	}
 }
 
+// TestAppendFormatAllocs checks that the display path does not allocate for
+// named and (once seen) unnamed dimensions; this package's own contract.
+func TestAppendFormatAllocs(t *testing.T) {
+	buf := make([]byte, 0, 64)
+	for _, d := range []Dim{Voltage, CurrentDensity, Voltage.Div(Time)} {
+		if n := testing.AllocsPerRun(100, func() { buf = AppendFormat(buf[:0], 0.0125, d) }); n != 0 {
+			t.Errorf("AppendFormat(%v) allocates %g times per call", d, n)
+		}
+	}
+}
+
 // TestFormatIn checks values shown in a given unit, with the same sources
 // as TestFormat; °C against §2.3.1 of the SI Brochure (T/°C = T/K − 273.15).
 func TestFormatIn(t *testing.T) {
