@@ -3,6 +3,7 @@ package main
 import (
 	"context"
 	"fmt"
+	"io"
 
 	"github.com/loligo-lab/loligo/display"
 	"github.com/loligo-lab/loligo/kernel"
@@ -14,6 +15,12 @@ import (
 type kernelSession struct {
 	s     *runtime.Session
 	cells int
+	// showEach shows every expression statement of a cell, not only the
+	// last (scripts run as notebooks).
+	showEach bool
+	// progress, if set, receives progress as terminal lines instead of
+	// in-place displays (notebooks run with no front end).
+	progress io.Writer
 }
 
 var _ kernel.Session = (*kernelSession)(nil)
@@ -24,7 +31,15 @@ func newKernelSession() kernel.Session { return &kernelSession{s: newSession()} 
 // shows all but the last as display outputs and the last as the result.
 func (k *kernelSession) Execute(ctx context.Context, code string, out kernel.Output) (*kernel.Bundle, error) {
 	k.cells++
-	res, err := k.s.Execute(ctx, fmt.Sprintf("cell[%d]", k.cells), code, kernelOutput{out})
+	name := fmt.Sprintf("cell[%d]", k.cells)
+	var rout runtime.Output = kernelOutput{out}
+	if k.progress != nil {
+		rout = lineOutput{kernelOutput{out}, k.progress}
+	}
+	if k.showEach {
+		return nil, k.s.Run(ctx, name, code, rout)
+	}
+	res, err := k.s.Execute(ctx, name, code, rout)
 	if err != nil {
 		return nil, err
 	}
@@ -80,3 +95,17 @@ func (o kernelOutput) Display(b display.Bundle, id string, update bool) {
 }
 func (o kernelOutput) Stream(name, text string) { o.out.Stream(name, text) }
 func (o kernelOutput) ClearOutput(wait bool)    { o.out.ClearOutput(wait) }
+
+// lineOutput is a kernelOutput whose progress goes to a terminal.
+type lineOutput struct {
+	kernelOutput
+	w io.Writer
+}
+
+func (o lineOutput) ProgressLine(text string, final bool) {
+	end := ""
+	if final {
+		end = "\n"
+	}
+	fmt.Fprintf(o.w, "\r\033[K%s%s", text, end)
+}

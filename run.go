@@ -8,40 +8,138 @@ import (
 	"io"
 	"os"
 	"os/signal"
+	"path/filepath"
+	"strings"
 
 	"github.com/loligo-lab/loligo/display"
+	"github.com/loligo-lab/loligo/kernel/notebook"
 	"github.com/loligo-lab/loligo/runtime"
 	"github.com/loligo-lab/loligo/stdlib"
 )
 
-// runCommand is `loligo run FILE.loligo`: it evaluates the script in a
-// fresh session, printing each shown value as text, and stops with exit
-// status 1 at the first error.
+const runUsage = `usage: loligo run [-o OUT.ipynb] [--html REPORT.html] [--keep-going] FILE.loligo|FILE.ipynb
+
+Runs a script or a notebook with no front end. What it shows is printed as
+text; -o writes the executed notebook (never over its input), --html a
+self-contained report. Exit status 1 at the first failing cell.
+`
+
+// runCommand is `loligo run`.
 func runCommand(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("run", flag.ContinueOnError)
 	fs.SetOutput(stderr)
+	fs.Usage = func() { fmt.Fprint(stderr, runUsage) }
+	out := fs.String("o", "", "write the executed notebook to this file")
+	report := fs.String("html", "", "write a self-contained HTML report to this file")
+	keepGoing := fs.Bool("keep-going", false, "run the remaining cells after a failing one")
 	if err := fs.Parse(args); err != nil {
 		return 2
 	}
 	if fs.NArg() != 1 {
-		fmt.Fprintln(stderr, "usage: loligo run FILE.loligo")
+		fs.Usage()
 		return 2
 	}
 	path := fs.Arg(0)
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+	defer stop()
+	if strings.HasSuffix(path, ".ipynb") || *out != "" || *report != "" {
+		return runNotebook(ctx, path, *out, *report, *keepGoing, stdout, stderr)
+	}
+	return runScript(ctx, path, stdout, stderr)
+}
+
+// runScript evaluates a script in a fresh session, printing each shown
+// value as text.
+func runScript(ctx context.Context, path string, stdout, stderr io.Writer) int {
 	src, err := os.ReadFile(path)
 	if err != nil {
 		fmt.Fprintf(stderr, "loligo: %v\n", err)
 		return 1
 	}
-	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-	defer stop()
-	s := newSession()
 	out := &textOutput{stdout: stdout, stderr: stderr}
-	if err := s.Run(ctx, path, string(src), out); err != nil {
+	if err := newSession().Run(ctx, path, string(src), out); err != nil {
 		printError(stderr, err)
 		return 1
 	}
 	return 0
+}
+
+// runNotebook executes a notebook (or a script made into one: cells split
+// at "#--" lines) as a front end would, prints its outputs as text, and
+// writes the executed notebook and the report when asked.
+func runNotebook(ctx context.Context, path, out, report string, keepGoing bool, stdout, stderr io.Writer) int {
+	nb, err := loadNotebook(path)
+	if err != nil {
+		fmt.Fprintf(stderr, "loligo: %v\n", err)
+		return 1
+	}
+	if out != "" && sameFile(out, path) {
+		fmt.Fprintf(stderr, "loligo: -o %s would overwrite the input; choose another name\n", out)
+		return 2
+	}
+	ks := &kernelSession{s: newSession(), progress: stderr, showEach: strings.HasSuffix(path, ".loligo")}
+	res := notebook.Execute(ctx, nb, ks, &notebook.Settings{KeepGoing: keepGoing})
+	printNotebook(stdout, nb)
+	code := 0
+	if res.Err != nil {
+		fmt.Fprintf(stderr, "loligo: cell %d failed\n", res.Failed+1)
+		printError(stderr, res.Err)
+		code = 1
+	}
+	if out != "" {
+		if err := nb.WriteFile(out); err != nil {
+			fmt.Fprintf(stderr, "loligo: %v\n", err)
+			return 1
+		}
+	}
+	if report != "" {
+		note := fmt.Sprintf("Run with loligo %s from %s. Research use only; not for clinical or diagnostic use.", version, filepath.Base(path))
+		title := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
+		err := notebook.WriteAtomic(report, func(w io.Writer) error { return notebook.Report(w, nb, title, note) })
+		if err != nil {
+			fmt.Fprintf(stderr, "loligo: %v\n", err)
+			return 1
+		}
+	}
+	return code
+}
+
+func loadNotebook(path string) (*notebook.Notebook, error) {
+	if strings.HasSuffix(path, ".ipynb") {
+		return notebook.ReadFile(path)
+	}
+	src, err := os.ReadFile(path)
+	if err != nil {
+		return nil, err
+	}
+	nb := notebook.New("loligo", "Loligo", "loligo", ".loligo")
+	notebook.FromScript(string(src), nb)
+	return nb, nil
+}
+
+func sameFile(a, b string) bool {
+	sa, errA := os.Stat(a)
+	sb, errB := os.Stat(b)
+	if errA == nil && errB == nil {
+		return os.SameFile(sa, sb)
+	}
+	return filepath.Clean(a) == filepath.Clean(b)
+}
+
+// printNotebook writes the text form of every output of every code cell.
+func printNotebook(w io.Writer, nb *notebook.Notebook) {
+	for _, c := range nb.Cells {
+		for _, o := range c.Outputs {
+			switch o.Type {
+			case "stream":
+				fmt.Fprint(w, string(o.Text))
+			case "display_data", "execute_result":
+				if t, ok := o.Data[display.MIMEText].(string); ok {
+					fmt.Fprintln(w, t)
+				}
+			}
+		}
+	}
 }
 
 // newSession is a session with every builtin of the standard library.
