@@ -3,6 +3,7 @@ package runtime
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"github.com/loligo-lab/loligo/runtime/syntax"
 	"github.com/loligo-lab/loligo/runtime/units"
@@ -126,14 +127,22 @@ func numeric(op syntax.Token, a, b operand) (Value, error) {
 		}
 		return combine(a, b, n, a.dim, func(x, y float64) float64 { return x + sign*y })
 	case syntax.MUL:
-		return combine(a, b, n, a.dim.Mul(b.dim), func(x, y float64) float64 { return x * y })
+		d, err := a.dim.MulChecked(b.dim)
+		if err != nil {
+			return nil, UnitErrorf("%s", strings.TrimPrefix(err.Error(), "units: "))
+		}
+		return combine(a, b, n, d, func(x, y float64) float64 { return x * y })
 	case syntax.QUO:
 		for i, y := range b.v {
 			if y == 0 {
 				return nil, ValueErrorf("division by zero%s", where(b, i))
 			}
 		}
-		return combine(a, b, n, a.dim.Div(b.dim), func(x, y float64) float64 { return x / y })
+		d, err := a.dim.DivChecked(b.dim)
+		if err != nil {
+			return nil, UnitErrorf("%s", strings.TrimPrefix(err.Error(), "units: "))
+		}
+		return combine(a, b, n, d, func(x, y float64) float64 { return x / y })
 	case syntax.POW:
 		return power(a, b, n)
 	case syntax.EQL, syntax.NEQ, syntax.LSS, syntax.LEQ, syntax.GTR, syntax.GEQ:

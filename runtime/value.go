@@ -2,6 +2,7 @@ package runtime
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"github.com/loligo-lab/loligo/display"
@@ -86,7 +87,20 @@ func (v *Vector) displayUnit() units.Unit {
 	if v.Unit != nil {
 		return *v.Unit
 	}
-	return units.Choose(v.V, v.Dim)
+	return ChooseUnit(v.V, v.Dim)
+}
+
+// ChooseUnit picks one display unit for a set of values: the one that puts
+// the largest finite magnitude in [1, 1000), so that [0, 0.5, 1] ms reads
+// as such rather than in µs.
+func ChooseUnit(si []float64, d units.Dim) units.Unit {
+	m := 0.0
+	for _, x := range si {
+		if a := math.Abs(x); a > m && !math.IsInf(a, 0) {
+			m = a
+		}
+	}
+	return units.Choose([]float64{m}, d)
 }
 
 func formatVector(v *Vector, max int) string {

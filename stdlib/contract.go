@@ -18,15 +18,15 @@ type Plottable interface {
 // Axis holds data ready for a figure: values converted from SI to one
 // readable unit, and the axis label that names that unit.
 type Axis struct {
-	Label string    // "V (mV)"
+	Label string // "V (mV)"
 	Unit  units.Unit
 	Data  []float64 // in Unit
 }
 
 // NewAxis converts si (of dimension d) for display under the name, choosing
-// one unit for all values (units.Choose). The input is not modified.
+// one unit for all values (runtime.ChooseUnit). The input is not modified.
 func NewAxis(name string, si []float64, d units.Dim) Axis {
-	return AxisIn(name, si, units.Choose(si, d))
+	return AxisIn(name, si, runtime.ChooseUnit(si, d))
 }
 
 // AxisIn is NewAxis with the unit given.
