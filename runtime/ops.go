@@ -73,6 +73,11 @@ func binaryOp(op syntax.Token, x, y Value) (Value, error) {
 			return v, err
 		}
 	}
+	if a, ok := x.(Quantity); ok {
+		if b, ok := y.(Quantity); ok {
+			return scalar(op, a, b)
+		}
+	}
 	if a, ok := asOperand(x); ok {
 		if b, ok := asOperand(y); ok {
 			return numeric(op, a, b)
@@ -103,6 +108,38 @@ func operate(sym string, x, y Value) (Value, bool, error) {
 		return o.Operate(sym, x, true)
 	}
 	return nil, false, nil
+}
+
+// scalar is numeric for two quantities without the slices: the common case
+// of a cell's arithmetic, with no allocation but the result's. Anything it
+// does not do directly (comparisons, powers, every error) goes to numeric.
+func scalar(op syntax.Token, a, b Quantity) (Value, error) {
+	var (
+		r   float64
+		d   = a.Dim
+		ok  bool
+		err error
+	)
+	switch op {
+	case syntax.ADD:
+		r, ok = a.V+b.V, a.Dim == b.Dim
+	case syntax.SUB:
+		r, ok = a.V-b.V, a.Dim == b.Dim
+	case syntax.MUL:
+		d, err = a.Dim.MulChecked(b.Dim)
+		r, ok = a.V*b.V, err == nil
+	case syntax.QUO:
+		d, err = a.Dim.DivChecked(b.Dim)
+		ok = err == nil && b.V != 0
+		if ok {
+			r = a.V / b.V
+		}
+	}
+	if !ok || math.IsInf(r, 0) && !math.IsInf(a.V, 0) && !math.IsInf(b.V, 0) {
+		one := func(q Quantity) operand { return operand{v: []float64{q.V}, dim: q.Dim, scalar: true} }
+		return numeric(op, one(a), one(b))
+	}
+	return Q(r, d), nil
 }
 
 func numeric(op syntax.Token, a, b operand) (Value, error) {
