@@ -1,0 +1,519 @@
+package stdlib
+
+import (
+	"fmt"
+	"math"
+	"path/filepath"
+	"strings"
+
+	"github.com/loligo-lab/loligo/display"
+	"github.com/loligo-lab/loligo/runtime"
+	"github.com/loligo-lab/loligo/runtime/units"
+)
+
+// FigureValue is a figure of the language: what plot, scatter and
+// histogram return. It shows as an SVG with a plain-text description and
+// can be saved with save(fig, "name.svg") or ".png".
+type FigureValue struct{ F *display.Figure }
+
+var (
+	_ runtime.Shower = (*FigureValue)(nil)
+	_ runtime.Helper = (*FigureValue)(nil)
+	_ Plottable      = (*FigureValue)(nil)
+)
+
+// Type implements runtime.Value.
+func (*FigureValue) Type() string { return "figure" }
+
+// String is a one-line summary: `figure "f–I": 1 panel, 2 series`.
+func (fv *FigureValue) String() string {
+	n := 0
+	for _, p := range fv.F.Panels {
+		n += len(p.Series)
+	}
+	title := ""
+	if fv.F.Title != "" {
+		title = fmt.Sprintf(" %q", fv.F.Title)
+	}
+	return fmt.Sprintf("figure%s: %s, %d series", title, plural(len(fv.F.Panels), "panel"), n)
+}
+
+// Figure implements Plottable, so figures can be combined: plot(fig1, fig2).
+func (fv *FigureValue) Figure() (*display.Figure, error) { return fv.F, nil }
+
+// Show implements runtime.Shower: SVG, a text summary and the size; never
+// HTML, which front ends would prefer over the picture.
+func (fv *FigureValue) Show() ([]display.Bundle, error) {
+	b, err := fv.F.Bundle()
+	if err != nil {
+		return nil, err
+	}
+	return []display.Bundle{b}, nil
+}
+
+// Help implements runtime.Helper.
+func (fv *FigureValue) Help() string {
+	return fv.F.Summary() + "\n\nsave(fig, \"name.svg\") or \"name.png\" writes it to a file; plot(fig, other) overlays or stacks figures."
+}
+
+// plotOptions are plot's named arguments.
+type plotOptions struct {
+	title      string
+	logX, logY bool
+	x          []float64 // for vectors; nil means against their index
+	xDim       units.Dim
+	over       []float64 // for function values
+	overDim    units.Dim
+}
+
+// plotFn is plot(): every item becomes a figure, and the figures are merged.
+func plotFn(c *runtime.Call) (runtime.Value, error) {
+	o := plotOptions{title: c.Str("title"), logX: c.Bool("log_x"), logY: c.Bool("log_y")}
+	if c.Has("x") {
+		o.x, o.xDim = c.Floats("x")
+	}
+	if c.Has("over") {
+		o.over, o.overDim = c.Floats("over")
+		if len(o.over) < 2 {
+			return nil, runtime.ValueErrorf("plot: over needs at least 2 points, got %d; use over = span(a, b, n = 200)", len(o.over))
+		}
+	}
+	var figs []*display.Figure
+	items := flatten(c.Rest())
+	for k, it := range items {
+		f, err := itemFigure(c, it, k+1, &o)
+		if err != nil {
+			return nil, err
+		}
+		figs = append(figs, f)
+	}
+	if c.Has("y") {
+		y, yd := c.Floats("y")
+		f, err := vectorFigure(y, yd, "y", o, display.Points)
+		if err != nil {
+			return nil, err
+		}
+		figs = append(figs, f)
+	}
+	if len(figs) == 0 {
+		return nil, runtime.ArgumentErrorf("plot: nothing to draw; give traces, vectors or functions, e.g. plot(r) or plot(logistic, over = span(-4, 4, n = 200)), or points with plot(x = …, y = …)")
+	}
+	f := mergeFigures(figs)
+	f.Title = o.title
+	for i := range f.Panels {
+		f.Panels[i].LogX = f.Panels[i].LogX || o.logX
+		f.Panels[i].LogY = f.Panels[i].LogY || o.logY
+	}
+	if err := f.Validate(); err != nil {
+		return nil, runtime.ValueErrorf("plot: %s", strings.TrimPrefix(err.Error(), "display: "))
+	}
+	return &FigureValue{F: f}, nil
+}
+
+// flatten spreads lists so that plot([a, b]) draws a and b.
+func flatten(vs []runtime.Value) []runtime.Value {
+	var out []runtime.Value
+	for _, v := range vs {
+		if l, ok := v.(*runtime.List); ok && !allQuantities(l) {
+			out = append(out, flatten(l.Elems)...)
+			continue
+		}
+		out = append(out, v)
+	}
+	return out
+}
+
+func allQuantities(l *runtime.List) bool {
+	for _, e := range l.Elems {
+		if _, ok := e.(runtime.Quantity); !ok {
+			return false
+		}
+	}
+	return len(l.Elems) > 0
+}
+
+// itemFigure draws one argument of plot.
+func itemFigure(c *runtime.Call, it runtime.Value, k int, o *plotOptions) (*display.Figure, error) {
+	switch x := it.(type) {
+	case Plottable:
+		f, err := x.Figure()
+		if err != nil {
+			return nil, err
+		}
+		if f == nil {
+			return nil, runtime.ValueErrorf("plot: argument %d (%s) has nothing to draw", k, x.Type())
+		}
+		return f, nil
+	case *runtime.Vector:
+		return vectorFigure(x.V, x.Dim, "y", *o, display.Line)
+	case *runtime.List:
+		v := &runtime.Vector{}
+		for i, e := range x.Elems {
+			q := e.(runtime.Quantity)
+			if i > 0 && q.Dim != v.Dim {
+				return nil, runtime.UnitErrorf("plot: argument %d mixes %s and %s; a list to draw must share one dimension", k, v.Dim.Describe(), q.Dim.Describe())
+			}
+			v.V, v.Dim = append(v.V, q.V), q.Dim
+		}
+		return vectorFigure(v.V, v.Dim, "y", *o, display.Line)
+	case runtime.Function:
+		return functionFigure(c, x, *o)
+	}
+	return nil, runtime.ArgumentErrorf("plot: argument %d is %s, which cannot be drawn; give a trace, curve, table, vector or function", k, it.Type())
+}
+
+// vectorFigure draws values against o.x, or against their index.
+func vectorFigure(y []float64, yd units.Dim, name string, o plotOptions, kind display.SeriesKind) (*display.Figure, error) {
+	if len(y) == 0 {
+		return nil, runtime.ValueErrorf("plot: the vector to draw is empty")
+	}
+	ya := NewAxis(name, y, yd)
+	var xa Axis
+	if o.x == nil {
+		if kind == display.Points {
+			return nil, runtime.ArgumentErrorf("plot: y = … needs x = … of the same length")
+		}
+		idx := make([]float64, len(y))
+		for i := range idx {
+			idx[i] = float64(i)
+		}
+		xa = Axis{Label: "index", Unit: units.Unit{Scale: 1}, Data: idx}
+	} else {
+		if len(o.x) != len(y) {
+			return nil, runtime.ValueErrorf("plot: x has %d values but y has %d; give vectors of the same length", len(o.x), len(y))
+		}
+		xa = NewAxis("x", o.x, o.xDim)
+	}
+	s := display.Series{Kind: kind, X: xa.Data, Y: ya.Data}
+	return &display.Figure{Panels: []display.Panel{{XLabel: xa.Label, YLabel: ya.Label, Series: []display.Series{s}, NoLegend: true}}}, nil
+}
+
+// functionFigure draws a function of one variable over o.over: y = f(x) at
+// each point, NaN (a gap) where f fails.
+func functionFigure(c *runtime.Call, f runtime.Function, o plotOptions) (*display.Figure, error) {
+	if o.over == nil {
+		return nil, runtime.ArgumentErrorf("plot: to draw %s give the inputs, e.g. over = span(-4, 4, n = 200)", f.FuncName())
+	}
+	fn, out, err := c.ScalarFunc(f, o.overDim, o.over[0])
+	if err != nil {
+		return nil, runtime.ValueErrorf("plot: %s cannot be drawn over %s: %v", f.FuncName(), runtime.Q(o.over[0], o.overDim), err)
+	}
+	y := make([]float64, len(o.over))
+	for i, x := range o.over {
+		if i%64 == 0 && c.Ctx != nil {
+			if err := c.Ctx.Err(); err != nil {
+				return nil, err
+			}
+		}
+		if y[i], err = fn(x); err != nil {
+			y[i] = math.NaN()
+		}
+	}
+	xname := "x"
+	if fm, ok := f.(*runtime.Formula); ok && len(fm.Vars) > 0 {
+		xname = fm.Vars[0]
+	}
+	xa, ya := NewAxis(xname, o.over, o.overDim), NewAxis("y", y, out)
+	s := display.Series{Kind: display.Line, Name: f.FuncName(), X: xa.Data, Y: ya.Data}
+	return &display.Figure{Panels: []display.Panel{{XLabel: xa.Label, YLabel: ya.Label, Series: []display.Series{s}}}}, nil
+}
+
+// mergeFigures overlays the series of panels with the same axis labels and
+// stacks the others, in the order they come. Series joining a panel from
+// another figure take the next colour, and repeated names are numbered.
+func mergeFigures(figs []*display.Figure) *display.Figure {
+	if len(figs) == 1 {
+		f := *figs[0]
+		f.Panels = append([]display.Panel(nil), f.Panels...)
+		return &f
+	}
+	out := &display.Figure{SharedX: true}
+	xlabel := ""
+	for fi, f := range figs {
+		for _, p := range f.Panels {
+			if p.XLabel != "" {
+				if xlabel != "" && p.XLabel != xlabel {
+					out.SharedX = false
+				}
+				xlabel = p.XLabel
+			}
+			j := panelIndex(out.Panels, p)
+			if j < 0 {
+				q := p
+				q.Series = append([]display.Series(nil), p.Series...)
+				out.Panels = append(out.Panels, q)
+				continue
+			}
+			dst := &out.Panels[j]
+			dst.NoLegend = dst.NoLegend && p.NoLegend
+			for _, s := range p.Series {
+				if fi > 0 && s.Kind != display.HLine && s.Kind != display.VLine {
+					s.Colour = 0
+				}
+				s.Name = uniqueName(dst.Series, s.Name, len(dst.Series)+1)
+				dst.Series = append(dst.Series, s)
+			}
+			dst.NoLegend = false
+		}
+	}
+	return out
+}
+
+func panelIndex(ps []display.Panel, p display.Panel) int {
+	for i, q := range ps {
+		if q.XLabel == p.XLabel && q.YLabel == p.YLabel {
+			return i
+		}
+	}
+	return -1
+}
+
+func uniqueName(ss []display.Series, name string, n int) string {
+	if name == "" {
+		return fmt.Sprintf("series %d", n)
+	}
+	for _, s := range ss {
+		if s.Name == name {
+			return fmt.Sprintf("%s (%d)", name, n)
+		}
+	}
+	return name
+}
+
+// saveFigure writes any plottable to path as SVG or PNG, atomically.
+func saveFigure(v runtime.Value, path string) error {
+	p, ok := v.(Plottable)
+	if !ok {
+		if _, isTable := v.(*TableValue); isTable {
+			return runtime.ArgumentErrorf("save: to save a table use write(table, %q)", strings.TrimSuffix(path, filepath.Ext(path))+".csv")
+		}
+		return runtime.ArgumentErrorf("save: %s is not a figure; save(plot(x), \"name.svg\") draws and saves it", v.Type())
+	}
+	ext := strings.ToLower(filepath.Ext(path))
+	if ext != ".svg" && ext != ".png" {
+		return runtime.ValueErrorf("save: cannot tell the format of %q; end the name in .svg or .png", path)
+	}
+	if err := checkFolder("save", path); err != nil {
+		return err
+	}
+	f, err := p.Figure()
+	if err != nil {
+		return err
+	}
+	if err := f.Save(path); err != nil {
+		return runtime.ValueErrorf("save: %s; choose a folder you can write to", strings.TrimPrefix(err.Error(), "display: "))
+	}
+	return nil
+}
+
+// HistogramValue is a histogram: bin edges and counts (or densities). It
+// draws as steps and has the fields edges, counts and centres.
+type HistogramValue struct {
+	Edges   []float64 // SI, len(Counts)+1
+	Counts  []float64 // counts, or densities in 1/Dim when Density
+	Dim     units.Dim // of the binned values
+	Name    string
+	Density bool
+}
+
+var (
+	_ Plottable       = (*HistogramValue)(nil)
+	_ runtime.Fielder = (*HistogramValue)(nil)
+	_ runtime.Shower  = (*HistogramValue)(nil)
+)
+
+// histogram bins the finite values of xs into n equal bins from their least
+// to their greatest value; each bin holds [lo, hi) except the last, which
+// holds its upper edge too (the same rule as numpy.histogram). A range of
+// zero width is widened by half the value's magnitude (or 0.5) each side.
+func histogram(xs []float64, n int) (edges, counts []float64, used int) {
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, x := range xs {
+		if !math.IsNaN(x) && !math.IsInf(x, 0) {
+			lo, hi = min(lo, x), max(hi, x)
+			used++
+		}
+	}
+	if used == 0 {
+		return nil, nil, 0
+	}
+	if lo == hi {
+		w := 0.5 * math.Abs(lo)
+		if w == 0 {
+			w = 0.5
+		}
+		lo, hi = lo-w, hi+w
+	}
+	edges, counts = make([]float64, n+1), make([]float64, n)
+	for i := range edges {
+		edges[i] = lo + (hi-lo)*float64(i)/float64(n)
+	}
+	edges[n] = hi
+	for _, x := range xs {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			continue
+		}
+		k := min(int((x-lo)/(hi-lo)*float64(n)), n-1)
+		// Rounding may put x one bin off its edges; the edges decide.
+		for k > 0 && x < edges[k] {
+			k--
+		}
+		for k < n-1 && x >= edges[k+1] {
+			k++
+		}
+		counts[k]++
+	}
+	return edges, counts, used
+}
+
+// Type implements runtime.Value.
+func (*HistogramValue) Type() string { return "histogram" }
+
+// String is a summary: "histogram of ISI: 30 bins from 4 ms to 61 ms, 212 values".
+func (h *HistogramValue) String() string {
+	total := 0.0
+	for i, c := range h.Counts {
+		if h.Density {
+			c *= h.Edges[i+1] - h.Edges[i]
+		}
+		total += c
+	}
+	if h.Density {
+		return fmt.Sprintf("histogram of %s: %d bins from %s to %s, density", h.Name, len(h.Counts),
+			units.Format(h.Edges[0], h.Dim), units.Format(h.Edges[len(h.Edges)-1], h.Dim))
+	}
+	return fmt.Sprintf("histogram of %s: %d bins from %s to %s, %s", h.Name, len(h.Counts),
+		units.Format(h.Edges[0], h.Dim), units.Format(h.Edges[len(h.Edges)-1], h.Dim), plural(int(total), "value"))
+}
+
+// FieldNames implements runtime.Fielder.
+func (*HistogramValue) FieldNames() []string { return []string{"edges", "counts", "centres"} }
+
+// Field implements runtime.Fielder.
+func (h *HistogramValue) Field(name string) (runtime.Value, error) {
+	switch name {
+	case "edges":
+		return &runtime.Vector{V: append([]float64(nil), h.Edges...), Dim: h.Dim}, nil
+	case "counts":
+		var d units.Dim
+		if h.Density {
+			d = units.Dimensionless.Div(h.Dim)
+		}
+		return &runtime.Vector{V: append([]float64(nil), h.Counts...), Dim: d}, nil
+	case "centres":
+		c := make([]float64, len(h.Counts))
+		for i := range c {
+			c[i] = h.Edges[i] + (h.Edges[i+1]-h.Edges[i])/2
+		}
+		return &runtime.Vector{V: c, Dim: h.Dim}, nil
+	}
+	return nil, runtime.ValueErrorf("a histogram has no field %s; its fields are edges, counts and centres", name)
+}
+
+// Figure implements Plottable: the bins as steps.
+func (h *HistogramValue) Figure() (*display.Figure, error) {
+	xa := NewAxis(h.Name, h.Edges, h.Dim)
+	ylabel := "count"
+	ys := h.Counts
+	if h.Density {
+		ya := NewAxis("density", h.Counts, units.Dimensionless.Div(h.Dim))
+		ylabel, ys = ya.Label, ya.Data
+	}
+	s := display.Series{Kind: display.Steps, Name: h.Name, X: xa.Data, Y: ys}
+	return &display.Figure{Panels: []display.Panel{{XLabel: xa.Label, YLabel: ylabel, Series: []display.Series{s}, NoLegend: true}}}, nil
+}
+
+// Show implements runtime.Shower.
+func (h *HistogramValue) Show() ([]display.Bundle, error) {
+	f, _ := h.Figure()
+	return (&FigureValue{F: f}).Show()
+}
+
+func init() { domains = append(domains, registerFigures) }
+
+func registerFigures(reg *runtime.Registry) {
+	reg.Register(&runtime.Builtin{
+		Name: "plot", Category: "figures", Returns: "a figure",
+		Doc: "Draws its arguments in one figure: traces, curves, fits, tables, figures, vectors (against their index, or against x = …) " +
+			"and functions of one variable (builtins or formulas, drawn as y = f(x) at each point of over). Series whose panels have the " +
+			"same axis labels are overlaid with a legend; the others are stacked, sharing the x axis when its label agrees. " +
+			"plot(x = …, y = …) draws points. Axes carry units; log_x and log_y use logarithmic axes.",
+		Params: []runtime.Param{
+			{Name: "items", Kind: runtime.KindAny, Rest: true, Doc: "what to draw"},
+			{Name: "x", Kind: runtime.KindNumbers, Optional: true, Doc: "x values for vectors and for y"},
+			{Name: "y", Kind: runtime.KindNumbers, Optional: true, Doc: "y values drawn as points against x"},
+			{Name: "over", Kind: runtime.KindNumbers, Optional: true, Doc: "inputs for functions, e.g. span(-4, 4, n = 200)"},
+			{Name: "title", Kind: runtime.KindString, Default: `""`},
+			{Name: "log_x", Kind: runtime.KindBool, Default: "false"},
+			{Name: "log_y", Kind: runtime.KindBool, Default: "false"},
+		},
+		Fn: plotFn,
+	})
+	reg.Register(&runtime.Builtin{
+		Name: "scatter", Category: "figures", Returns: "a figure",
+		Doc: "Draws points (x[i], y[i]) with axes in the units of x and y; the same as plot(x = x, y = y).",
+		Params: []runtime.Param{
+			{Name: "x", Kind: runtime.KindNumbers}, {Name: "y", Kind: runtime.KindNumbers},
+			{Name: "title", Kind: runtime.KindString, Default: `""`},
+		},
+		Fn: func(c *runtime.Call) (runtime.Value, error) {
+			x, xd := c.Floats("x")
+			y, yd := c.Floats("y")
+			f, err := vectorFigure(y, yd, "y", plotOptions{x: x, xDim: xd}, display.Points)
+			if err != nil {
+				return nil, runtime.ValueErrorf("scatter: %s", strings.TrimPrefix(err.Error(), "plot: "))
+			}
+			f.Title = c.Str("title")
+			return &FigureValue{F: f}, nil
+		},
+	})
+	reg.Register(&runtime.Builtin{
+		Name: "histogram", Category: "figures", Returns: "a histogram",
+		Doc: "Counts values in equal bins from the least to the greatest: bin i holds values from edge i up to, not including, edge i+1, " +
+			"and the last bin includes its upper edge. Non-finite values are skipped. With density = true the heights are " +
+			"count / (n · width), so that the bars' area is 1 (an estimate of the probability density, in 1/unit of the values). " +
+			"Fields: edges, counts, centres.",
+		Params: []runtime.Param{
+			{Name: "values", Kind: runtime.KindNumbers},
+			{Name: "bins", Kind: runtime.KindNumber, Dimensionless: true, Default: "30", Doc: "the number of bins, 1 to 10000"},
+			{Name: "name", Kind: runtime.KindString, Default: `"value"`, Doc: "what the values are, for the x axis (\"ISI\")"},
+			{Name: "density", Kind: runtime.KindBool, Default: "false"},
+		},
+		Source: "binning rule as documented for numpy.histogram (NumPy reference); density estimate as in Silverman (1986), Density Estimation, ch. 2",
+		Fn:     histogramFn,
+	})
+	reg.Register(&runtime.Builtin{
+		Name: "save", Category: "figures", Returns: "the path written",
+		Doc: "Saves a figure (or anything plot can draw) as SVG or PNG, chosen by the extension of path. The file is written to a " +
+			"temporary file in the same folder and renamed into place, so a failure never leaves half a file. The folder must exist.",
+		Params: []runtime.Param{
+			{Name: "figure", Kind: runtime.KindAny},
+			{Name: "path", Kind: runtime.KindString, Doc: "ending in .svg or .png"},
+		},
+		Fn: func(c *runtime.Call) (runtime.Value, error) {
+			if err := saveFigure(c.Value("figure"), c.Str("path")); err != nil {
+				return nil, err
+			}
+			return runtime.String(c.Str("path")), nil
+		},
+	})
+}
+
+func histogramFn(c *runtime.Call) (runtime.Value, error) {
+	n, err := c.Int("bins", 1, 10000)
+	if err != nil {
+		return nil, err
+	}
+	xs, d := c.Floats("values")
+	edges, counts, used := histogram(xs, n)
+	if used == 0 {
+		return nil, runtime.ValueErrorf("histogram: no finite values to count (got %d values); check the input", len(xs))
+	}
+	h := &HistogramValue{Edges: edges, Counts: counts, Dim: d, Name: c.Str("name"), Density: c.Bool("density")}
+	if h.Density {
+		for i := range counts {
+			counts[i] /= float64(used) * (edges[i+1] - edges[i])
+		}
+	}
+	return h, nil
+}
