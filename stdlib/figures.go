@@ -79,9 +79,15 @@ func plotFn(c *runtime.Call) (runtime.Value, error) {
 		}
 	}
 	var figs []*display.Figure
-	items := flatten(c.Rest())
+	items, fs := splitFunctions(flatten(c.Rest()))
 	for k, it := range items {
-		f, err := itemFigure(c, it, k+1, &o)
+		var f *display.Figure
+		var err error
+		if it == nil { // where the first function stood: all functions in one figure
+			f, err = functionsFigure(c, fs, o)
+		} else {
+			f, err = itemFigure(c, it, k+1, &o)
+		}
 		if err != nil {
 			return nil, err
 		}
@@ -132,6 +138,38 @@ func allQuantities(l *runtime.List) bool {
 	return len(l.Elems) > 0
 }
 
+// splitFunctions takes the function values out of items, leaving nil where
+// the first of them stood, so that all are drawn together.
+func splitFunctions(items []runtime.Value) ([]runtime.Value, []runtime.Function) {
+	var out []runtime.Value
+	var fs []runtime.Function
+	for _, it := range items {
+		f, ok := it.(runtime.Function)
+		if !ok {
+			out = append(out, it)
+			continue
+		}
+		if len(fs) == 0 {
+			out = append(out, nil)
+		}
+		fs = append(fs, f)
+	}
+	return out, fs
+}
+
+// functionsFigure draws functions of one variable over o.over, through
+// FunctionFigure (stdlib/curve.go).
+func functionsFigure(c *runtime.Call, fs []runtime.Function, o plotOptions) (*display.Figure, error) {
+	if o.over == nil {
+		return nil, runtime.ArgumentErrorf("plot: to draw %s give the inputs, e.g. over = span(-4, 4, n = 200)", fs[0].FuncName())
+	}
+	f, err := FunctionFigure(c, fs, &runtime.Vector{V: o.over, Dim: o.overDim})
+	if err != nil {
+		return nil, runtime.ValueErrorf("plot: %s", strings.TrimPrefix(err.Error(), "stdlib: "))
+	}
+	return f, nil
+}
+
 // itemFigure draws one argument of plot.
 func itemFigure(c *runtime.Call, it runtime.Value, k int, o *plotOptions) (*display.Figure, error) {
 	switch x := it.(type) {
@@ -157,7 +195,7 @@ func itemFigure(c *runtime.Call, it runtime.Value, k int, o *plotOptions) (*disp
 		}
 		return vectorFigure(v.V, v.Dim, "y", *o, display.Line)
 	case runtime.Function:
-		return functionFigure(c, x, *o)
+		return functionsFigure(c, []runtime.Function{x}, *o)
 	}
 	return nil, runtime.ArgumentErrorf("plot: argument %d is %s, which cannot be drawn; give a trace, curve, table, vector or function", k, it.Type())
 }
@@ -186,36 +224,6 @@ func vectorFigure(y []float64, yd units.Dim, name string, o plotOptions, kind di
 	}
 	s := display.Series{Kind: kind, X: xa.Data, Y: ya.Data}
 	return &display.Figure{Panels: []display.Panel{{XLabel: xa.Label, YLabel: ya.Label, Series: []display.Series{s}, NoLegend: true}}}, nil
-}
-
-// functionFigure draws a function of one variable over o.over: y = f(x) at
-// each point, NaN (a gap) where f fails.
-func functionFigure(c *runtime.Call, f runtime.Function, o plotOptions) (*display.Figure, error) {
-	if o.over == nil {
-		return nil, runtime.ArgumentErrorf("plot: to draw %s give the inputs, e.g. over = span(-4, 4, n = 200)", f.FuncName())
-	}
-	fn, out, err := c.ScalarFunc(f, o.overDim, o.over[0])
-	if err != nil {
-		return nil, runtime.ValueErrorf("plot: %s cannot be drawn over %s: %v", f.FuncName(), runtime.Q(o.over[0], o.overDim), err)
-	}
-	y := make([]float64, len(o.over))
-	for i, x := range o.over {
-		if i%64 == 0 && c.Ctx != nil {
-			if err := c.Ctx.Err(); err != nil {
-				return nil, err
-			}
-		}
-		if y[i], err = fn(x); err != nil {
-			y[i] = math.NaN()
-		}
-	}
-	xname := "x"
-	if fm, ok := f.(*runtime.Formula); ok && len(fm.Vars) > 0 {
-		xname = fm.Vars[0]
-	}
-	xa, ya := NewAxis(xname, o.over, o.overDim), NewAxis("y", y, out)
-	s := display.Series{Kind: display.Line, Name: f.FuncName(), X: xa.Data, Y: ya.Data}
-	return &display.Figure{Panels: []display.Panel{{XLabel: xa.Label, YLabel: ya.Label, Series: []display.Series{s}}}}, nil
 }
 
 // mergeFigures overlays the series of panels with the same axis labels and
@@ -284,9 +292,6 @@ func uniqueName(ss []display.Series, name string, n int) string {
 func saveFigure(v runtime.Value, path string) error {
 	p, ok := v.(Plottable)
 	if !ok {
-		if _, isTable := v.(*TableValue); isTable {
-			return runtime.ArgumentErrorf("save: to save a table use write(table, %q)", strings.TrimSuffix(path, filepath.Ext(path))+".csv")
-		}
 		return runtime.ArgumentErrorf("save: %s is not a figure; save(plot(x), \"name.svg\") draws and saves it", v.Type())
 	}
 	ext := strings.ToLower(filepath.Ext(path))
