@@ -1,0 +1,230 @@
+package stdlib
+
+import (
+	"context"
+	"encoding/xml"
+	"errors"
+	"io"
+	"math"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strconv"
+	"strings"
+	"testing"
+
+	"github.com/loligo-lab/loligo/display"
+	"github.com/loligo-lab/loligo/runtime"
+)
+
+// near reports whether got is within abs or rel·|want| of want: the one
+// tolerance helper of this package's binding tests.
+func near(got, want, abs, rel float64) bool {
+	return math.Abs(got-want) <= max(abs, rel*math.Abs(want))
+}
+
+// record collects a session's outputs.
+type record struct {
+	shown   []shown
+	streams []string
+	lines   []string // terminal progress lines, when used as a terminal
+}
+
+type shown struct {
+	b      display.Bundle
+	id     string
+	update bool
+}
+
+func (r *record) Display(b display.Bundle, id string, update bool) {
+	r.shown = append(r.shown, shown{b, id, update})
+}
+func (r *record) Stream(name, text string) { r.streams = append(r.streams, name+": "+text) }
+
+// terminal is a record that takes progress as lines, like `loligo run`.
+type terminal struct{ record }
+
+func (t *terminal) ProgressLine(text string, final bool) { t.lines = append(t.lines, text) }
+
+// eval runs src in a fresh session with the registry given (nil = ours).
+func eval(t *testing.T, reg *runtime.Registry, out runtime.Output, src string) (runtime.Value, error) {
+	t.Helper()
+	if reg == nil {
+		reg = runtime.NewRegistry()
+		Register(reg)
+	}
+	res, err := runtime.NewSession(reg).Execute(context.Background(), "test", src, out)
+	if err != nil {
+		return nil, err
+	}
+	return res.Value, nil
+}
+
+// svgSeries parses an SVG as XML and counts the palette colours in its
+// path styles (each automatically coloured series has its own; display's
+// SVG writes them as #RRGGBB, ±2 per channel for translucent fills) and
+// collects its texts.
+func svgSeries(t *testing.T, svg string) (int, []string) {
+	t.Helper()
+	d := xml.NewDecoder(strings.NewReader(svg))
+	var styles, texts []string
+	inText := false
+	for {
+		tok, err := d.Token()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			t.Fatalf("SVG is not well-formed XML: %v", err)
+		}
+		switch e := tok.(type) {
+		case xml.StartElement:
+			inText = e.Name.Local == "text"
+			for _, a := range e.Attr {
+				if e.Name.Local == "path" && a.Name.Local == "style" {
+					styles = append(styles, a.Value)
+				}
+			}
+		case xml.CharData:
+			if inText {
+				texts = append(texts, string(e))
+			}
+		case xml.EndElement:
+			inText = false
+		}
+	}
+	hexRe := regexp.MustCompile(`#([0-9A-Fa-f]{2})([0-9A-Fa-f]{2})([0-9A-Fa-f]{2})`)
+	n := 0
+	for _, p := range display.Palette {
+		found := false
+		for _, st := range styles {
+			for _, m := range hexRe.FindAllStringSubmatch(st, -1) {
+				ok := true
+				for k, want := range []uint8{p.R, p.G, p.B} {
+					v, _ := strconv.ParseUint(m[k+1], 16, 8)
+					ok = ok && near(float64(v), float64(want), 2, 0) // translucent fills are un-premultiplied with truncation
+				}
+				found = found || ok
+			}
+		}
+		if found {
+			n++
+		}
+	}
+	return n, texts
+}
+
+func TestPlotSVG(t *testing.T) {
+	const steps = `steps = read("../examples/data/l5-steps.csv")
+`
+	cases := []struct {
+		name   string
+		src    string
+		series int      // distinct series colours expected in the SVG
+		labels []string // texts that must appear
+	}{
+		// two dimensionless functions share one panel: two colours, a legend of both
+		{"functions overlaid", `plot(exp, sqrt, over = span(0, 1, n = 50))`, 2, []string{"exp", "sqrt"}},
+		// rate (with rate_se as its error bars) and trials against current: two panels,
+		// colours run on across panels; axis labels carry the header units
+		{"table", steps + `plot(steps)`, 2, []string{"current (pA)", "rate (Hz)", "trials"}},
+		// two vectors of the same dimension overlay in one panel
+		{"vectors", steps + `plot(steps.rate, steps.rate_se)`, 2, nil},
+		// a histogram is one steps series
+		{"histogram", `histogram([2, 3, 3, 5, 8] ms, bins = 3, name = "ISI")`, 1, []string{"ISI (ms)", "count"}},
+		// two stacked panels of different dimension, one series each
+		{"stacked", steps + `plot(steps.rate, steps.current)`, 2, []string{"y (Hz)", "y (pA)"}},
+	}
+	for _, c := range cases {
+		v, err := eval(t, nil, &record{}, c.src)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		bs, err := runtime.Show(v)
+		if err != nil || len(bs) != 1 {
+			t.Fatalf("%s: Show gave %d bundles, %v", c.name, len(bs), err)
+		}
+		if _, ok := bs[0].Data[display.MIMEHTML]; ok {
+			t.Errorf("%s: a figure must not carry text/html (front ends would hide the SVG)", c.name)
+		}
+		svg, ok := bs[0].Data[display.MIMESVG].(string)
+		if !ok {
+			t.Fatalf("%s: no image/svg+xml string in %v", c.name, bs[0].Data)
+		}
+		n, texts := svgSeries(t, svg)
+		if n != c.series {
+			t.Errorf("%s: %d series colours in the SVG, want %d", c.name, n, c.series)
+		}
+		all := strings.Join(texts, "\n")
+		for _, l := range c.labels {
+			if !strings.Contains(all, l) {
+				t.Errorf("%s: label %q not in the SVG texts %q", c.name, l, texts)
+			}
+		}
+	}
+}
+
+func TestSaveFigure(t *testing.T) {
+	dir := t.TempDir()
+	for _, ext := range []string{".svg", ".png"} {
+		path := filepath.Join(dir, "f"+ext)
+		if _, err := eval(t, nil, &record{}, `save(plot(exp, over = span(0, 1, n = 20)), "`+path+`")`); err != nil {
+			t.Fatalf("save %s: %v", ext, err)
+		}
+		data, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		// file signatures: PNG (ISO/IEC 15948 §5.2) and SVG's root element (SVG 1.1 §5.1)
+		if ext == ".png" && !strings.HasPrefix(string(data), "\x89PNG\r\n\x1a\n") {
+			t.Errorf("saved PNG lacks the PNG signature")
+		}
+		if ext == ".svg" && !strings.Contains(string(data), "<svg") {
+			t.Errorf("saved SVG has no svg element")
+		}
+	}
+	// an error leaves nothing behind: unknown extension, missing folder
+	bad := []struct{ path, msg string }{
+		{filepath.Join(dir, "g.pdf"), "end the name in .svg or .png"},
+		{filepath.Join(dir, "missing", "g.svg"), "does not exist"},
+	}
+	for _, b := range bad {
+		_, err := eval(t, nil, &record{}, `save(plot(exp, over = span(0, 1, n = 20)), "`+b.path+`")`)
+		if err == nil || !strings.Contains(err.Error(), b.msg) {
+			t.Errorf("save %s: error %v, want one containing %q", b.path, err, b.msg)
+		}
+		if _, serr := os.Stat(b.path); !errors.Is(serr, os.ErrNotExist) {
+			t.Errorf("save %s failed but left a file", b.path)
+		}
+	}
+	ents, _ := os.ReadDir(dir)
+	if len(ents) != 2 {
+		t.Errorf("the folder holds %d entries, want the 2 saved files (no temporary leftovers)", len(ents))
+	}
+}
+
+func TestHistogramRule(t *testing.T) {
+	// numpy.histogram documentation (NumPy reference): equal bins over
+	// [min, max], half-open but the last, which is closed.
+	cases := []struct {
+		xs     []float64
+		bins   int
+		counts []float64
+	}{
+		{[]float64{0, 1, 2, 3}, 3, []float64{1, 1, 2}},
+		{[]float64{1, 2, 1}, 2, []float64{2, 1}},
+		// 0.1·k sit on edges that are not exact in binary: each goes to the bin whose edge it reaches
+		{[]float64{0, 0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1}, 10, []float64{1, 1, 1, 1, 1, 1, 1, 1, 1, 2}},
+		// non-finite values are skipped (common practice)
+		{[]float64{math.NaN(), 5, math.Inf(1), 5}, 1, []float64{2}},
+	}
+	for _, c := range cases {
+		_, got, _ := histogram(c.xs, c.bins)
+		for i := range c.counts {
+			if i >= len(got) || got[i] != c.counts[i] { // counts are whole numbers: exact
+				t.Errorf("histogram(%v, %d) = %v, want %v", c.xs, c.bins, got, c.counts)
+				break
+			}
+		}
+	}
+}
