@@ -158,9 +158,10 @@ func applyAct(f activation.Func, deriv bool, x runtime.Value) runtime.Value {
 }
 
 // fixedFunction returns a function value of one dimensionless variable
-// standing for f (or f'), named for legends as "logistic(gain = 4)".
+// standing for f (or f'), named for legends as "logistic[gain = 4]".
 func fixedFunction(name string, f activation.Func, deriv bool) *runtime.Builtin {
 	label := name + paramText(f)
+	// Brackets, not parentheses: the signature adds "(x)" after the name.
 	what := "The activation function " + label
 	if deriv {
 		label = "derivative of " + label
@@ -181,7 +182,7 @@ func fixedFunction(name string, f activation.Func, deriv bool) *runtime.Builtin 
 	return b
 }
 
-// paramText is "(gain = 4)" for parameters away from their defaults.
+// paramText is "[gain = 4]" for parameters away from their defaults.
 func paramText(f activation.Func) string {
 	d, _ := activation.Lookup(f.Name())
 	var parts []string
@@ -194,7 +195,7 @@ func paramText(f activation.Func) string {
 	if len(parts) == 0 {
 		return ""
 	}
-	return "(" + strings.Join(parts, ", ") + ")"
+	return "[" + strings.Join(parts, ", ") + "]"
 }
 
 func derivativeBuiltin() *runtime.Builtin {
