@@ -351,9 +351,13 @@ func addColumn(t *table.Table, name string, v runtime.Value) error {
 	return nil
 }
 
+// lineRows is the number of rows above which a table column without error
+// bars is drawn as a line rather than as points.
+const lineRows = 50
+
 // Figure implements Plottable: the first number column is the x axis and
-// every other number column is drawn against it as points, one panel per
-// column; a column named like another with _se, _sd or _err after it gives
+// every other number column is drawn against it as points (a line for
+// more than lineRows rows), one panel per column; a column named like another with _se, _sd or _err after it gives
 // that column's error bars.
 func (tv *TableValue) Figure() (*display.Figure, error) {
 	var nums []int
@@ -381,6 +385,9 @@ func (tv *TableValue) Figure() (*display.Figure, error) {
 		}
 		y := tv.axis(names[i], i)
 		s := display.Series{Kind: display.Points, Name: names[i], X: x.Data, Y: y.Data}
+		if _, hasErr := errOf[names[i]]; !hasErr && tv.t.Len() > lineRows {
+			s.Kind = display.Line // a sampled signal (a trace), not a handful of measurements
+		}
 		if j, ok := errOf[names[i]]; ok {
 			s.YErr = AxisIn(names[j], tv.siOf(j), y.Unit).Data
 		}
