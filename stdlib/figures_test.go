@@ -228,3 +228,30 @@ func TestHistogramRule(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkReadPlotShow reads the invented trace, plots it and renders the SVG.
+func BenchmarkReadPlotShow(b *testing.B) {
+	reg := runtime.NewRegistry()
+	Register(reg)
+	s := runtime.NewSession(reg)
+	for b.Loop() {
+		res, err := s.Execute(context.Background(), "bench", `plot(read("../examples/data/trace.csv"))`, &record{})
+		if err != nil {
+			b.Fatal(err)
+		}
+		if _, err := runtime.Show(res.Value); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkHistogram bins 100,000 values into 30 bins.
+func BenchmarkHistogram(b *testing.B) {
+	xs := make([]float64, 100000)
+	for i := range xs {
+		xs[i] = math.Sin(float64(i))
+	}
+	for b.Loop() {
+		histogram(xs, 30)
+	}
+}
