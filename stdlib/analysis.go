@@ -489,7 +489,7 @@ func fiCurve(m *Model, res *neuron.SweepResult, d units.Dim) *Curve {
 		}
 	}
 	cv := NewSampledCurve("f–I curve of "+m.spec.title, x, d, r, units.Frequency, nil)
-	cv.AddSeries("first-ISI rate", f)
+	cv.AddSeries("first_isi_rate", f)
 	return cv
 }
 
