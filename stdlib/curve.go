@@ -37,7 +37,10 @@ type Curve struct {
 	Model tuning.Curve
 	// Line asks for a sampled curve to be drawn as a line (a dense
 	// estimate or slope) rather than as points.
-	Line   bool
+	Line bool
+	// YUnit, if set, is the unit responses are shown in (a slope in Hz/nA
+	// rather than the SI form 1/C); nil chooses one from the values.
+	YUnit  *units.Unit
 	Note   string // a line under the table: a source or a caveat
 	Source string // the published form the curve follows, if any
 }
@@ -257,7 +260,7 @@ func joinNames(names []string) string { return strings.Join(names, ", ") }
 // when known, and each further series, in readable units.
 func (c *Curve) Table() *display.Table {
 	xa := NewAxis(c.XName, c.X, c.XDim)
-	yu := runtime.ChooseUnit(c.Y, c.YDim)
+	yu := c.yUnit()
 	cols := []display.Column{display.Numbers(c.XName, xa.Unit.Symbol, xa.Data),
 		display.Numbers(c.YName, yu.Symbol, AxisIn(c.YName, c.Y, yu).Data)}
 	if c.SE != nil {
@@ -267,6 +270,13 @@ func (c *Curve) Table() *display.Table {
 		cols = append(cols, display.Numbers(s.Name, yu.Symbol, AxisIn(s.Name, s.Y, yu).Data))
 	}
 	return &display.Table{Title: c.Name, Columns: cols, Note: c.note()}
+}
+
+func (c *Curve) yUnit() units.Unit {
+	if c.YUnit != nil {
+		return *c.YUnit
+	}
+	return runtime.ChooseUnit(c.Y, c.YDim)
 }
 
 func (c *Curve) note() string {
@@ -287,7 +297,7 @@ func (c *Curve) Figure() (*display.Figure, error) {
 		return nil, runtime.ValueErrorf("stdlib: %s has no points to plot", c.Name)
 	}
 	xa := NewAxis(c.XName, c.X, c.XDim)
-	yu := runtime.ChooseUnit(c.Y, c.YDim)
+	yu := c.yUnit()
 	main := display.Series{Kind: display.Line, Name: c.Name, X: xa.Data, Y: AxisIn("", c.Y, yu).Data}
 	if c.Model == nil && !c.Line {
 		main.Kind = display.Points

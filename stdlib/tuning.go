@@ -236,6 +236,10 @@ func curveSlope(cv *Curve) (runtime.Value, error) {
 	}
 	out := NewSampledCurve("slope of "+cv.Name, cv.X, cv.XDim, y, cv.YDim.Div(cv.XDim), nil)
 	out.Line, out.YName, out.Source = true, "slope", cv.Source
+	xu := runtime.ChooseUnit(cv.X, cv.XDim)
+	if u, err := units.Parse("Hz/" + xu.Symbol); err == nil && xu.Symbol != "" && cv.YDim == units.Frequency && u.Dim == out.YDim {
+		out.YUnit = &u
+	}
 	return out, nil
 }
 
