@@ -7,6 +7,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 )
 
 // loligoClient drives the real loligo kernel with the reference client
@@ -18,6 +19,8 @@ import sys, queue
 from jupyter_client.manager import KernelManager
 km = KernelManager(kernel_name="loligo-e2e")
 km.start_kernel()
+import atexit
+atexit.register(lambda: km.is_alive() and km.shutdown_kernel(now=True))
 kc = km.client(); kc.start_channels(); kc.wait_for_ready(timeout=30)
 def run(code):
     msg_id = kc.execute(code)
@@ -49,8 +52,29 @@ c = kc.complete("y = sp", 6, reply=True, timeout=30)["content"]
 check("span" in c["matches"] and c["cursor_start"] == 4 and c["cursor_end"] == 6, "completion offers builtins")
 i = kc.inspect("span(0, 1, n = 3)", 2, reply=True, timeout=30)["content"]
 check(i["found"] and "span(from, to" in i["data"]["text/plain"], "inspection shows the declaration")
-ic = kc.is_complete("span(0,", reply=True, timeout=30)["content"]
+kc.is_complete("span(0,")
+ic = kc.get_shell_msg(timeout=30)["content"]
 check(ic["status"] == "incomplete", "an open bracket is incomplete")
+r, outs = run("plot(logistic, tanh, over = span(-4, 4, n = 50))")
+figs = [o for o in outs if o["msg_type"] in ("execute_result", "display_data") and "image/svg+xml" in o["content"]["data"]]
+check(figs and "text/html" not in figs[0]["content"]["data"], "a figure is SVG with no HTML beside it")
+import time
+msg_id = kc.execute("sweep(hh(), amplitude = span(0, 20, by = 0.5) uA/cm^2, duration = 5000 ms)")
+time.sleep(1.0)
+t0 = time.time(); km.interrupt_kernel()
+reply = kc.get_shell_msg(timeout=30)
+dt = time.time() - t0
+partial = []
+while True:
+    m = kc.get_iopub_msg(timeout=30)
+    if m["parent_header"].get("msg_id") != msg_id: continue
+    if m["msg_type"] == "status" and m["content"]["execution_state"] == "idle": break
+    if m["msg_type"] == "display_data" and "image/svg+xml" in m["content"]["data"]: partial.append(m)
+check(reply["content"]["status"] == "error" and reply["content"]["ename"] == "Interrupted", "an interrupted sweep answers Interrupted")
+check(dt < 2.0, "the interrupt took %.3f s" % dt)
+check(len(partial) >= 1, "the partial f-I curve is shown")
+r, outs = run("x")
+check(r["content"]["status"] == "ok", "the kernel answers after an interrupt")
 kc.stop_channels(); km.shutdown_kernel(now=False)
 print("done")
 `
@@ -87,6 +111,9 @@ func TestLoligoKernelWithReferenceClient(t *testing.T) {
 		"JUPYTER_RUNTIME_DIR="+dir, "PYTHONDONTWRITEBYTECODE=1")
 	var out bytes.Buffer
 	cmd.Stdout, cmd.Stderr = &out, &out
+	// The kernel inherits the script's output; should the script die
+	// without stopping it, do not wait for the kernel to close it.
+	cmd.WaitDelay = 10 * time.Second
 	err := cmd.Run()
 	t.Log(out.String())
 	if err != nil || !strings.Contains(out.String(), "done") {

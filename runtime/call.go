@@ -320,3 +320,19 @@ func (c *Call) ProgressLine(text string, final bool) {
 		lo.ProgressLine(text, final)
 	}
 }
+
+// Interrupted ends a builtin that an interrupt stopped part-way, when what it
+// finished is worth seeing (a sweep at 60%): it shows partial now, as the
+// cell's own outputs, and returns the error that ends the cell as
+// Interrupted, with note saying what the partial result holds. Like every
+// failed cell, the cell then binds nothing.
+func (c *Call) Interrupted(partial Value, note string) error {
+	if partial != nil {
+		if bs, err := Show(partial); err == nil {
+			for _, b := range bs {
+				c.Display(b, "", false)
+			}
+		}
+	}
+	return &kindError{KindInterrupted, c.Builtin.Name + " interrupted: " + note}
+}

@@ -444,7 +444,7 @@ func (in *interp) applyBuiltin(b *Builtin, args []Arg) (v Value, err error) {
 	if err == nil && v == nil {
 		v = nothing
 	}
-	if err != nil && in.ctx.Err() != nil {
+	if err != nil && in.ctx.Err() != nil && kindOf(err) != KindInterrupted {
 		return nil, &kindError{KindInterrupted, "interrupted in " + b.Name}
 	}
 	return v, err

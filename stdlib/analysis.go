@@ -432,7 +432,7 @@ func sweepBuiltin() *runtime.Builtin {
 	return &runtime.Builtin{
 		Name: "sweep", Category: "analysis", Returns: "an f–I curve",
 		Doc: "The f–I curve of a model: one current step of each amplitude, lasting duration, and for each the steady rate (the inverse mean ISI of the spikes in the last window of the step, by default its second half) " +
-			"and the first-ISI rate. Runs on all cores; the result does not depend on their number. Interrupted, it keeps the amplitudes finished.",
+			"and the first-ISI rate. Runs on all cores; the result does not depend on their number. Interrupted, it shows the curve of the amplitudes finished and the cell ends as interrupted.",
 		Source: "f–I curves as in Dayan & Abbott (2001), ch. 5; steady rate as common practice",
 		Params: append([]runtime.Param{{Name: "model", Kind: runtime.KindAny, Doc: "a spiking model"},
 			{Name: "amplitude", Kind: runtime.KindNumbers, Doc: "step amplitudes, e.g. span(0, 20, by = 1) uA/cm^2"}},
@@ -473,10 +473,9 @@ func sweepFn(c *runtime.Call) (runtime.Value, error) {
 	}
 	if err != nil {
 		prog.Interrupted()
-		c.Warn(fmt.Sprintf("sweep interrupted: %d of %d amplitudes finished; the curve holds those\n", res.Finished, len(amps)))
-	} else {
-		prog.Done()
+		return nil, c.Interrupted(fiCurve(m, res, d), fmt.Sprintf("%d of %d amplitudes finished; the partial curve is shown above", res.Finished, len(amps)))
 	}
+	prog.Done()
 	return fiCurve(m, res, d), nil
 }
 

@@ -491,6 +491,7 @@ func readoutNoise(c *runtime.Call) (runtime.Value, error) {
 	cv.AddSeries("noise-free", clean)
 	if len(noisy) < len(levels) {
 		cv.Note = fmt.Sprintf("interrupted: %d of %d noise levels computed", len(noisy), len(levels))
+		return nil, c.Interrupted(cv, cv.Note+"; the partial curve is shown above")
 	}
 	return cv, nil
 }

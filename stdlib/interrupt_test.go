@@ -1,0 +1,48 @@
+package stdlib
+
+import (
+	"context"
+	"errors"
+	"strings"
+	"testing"
+	"time"
+
+	"github.com/loligo-lab/loligo/display"
+	"github.com/loligo-lab/loligo/runtime"
+)
+
+type collect struct{ bundles []display.Bundle }
+
+func (c *collect) Display(b display.Bundle, id string, update bool) {
+	if !update {
+		c.bundles = append(c.bundles, b)
+	}
+}
+func (c *collect) Stream(string, string) {}
+
+// TestInterruptedSweepShowsPartialCurve: an interrupt stops the cell (it
+// binds nothing and ends as Interrupted) but the amplitudes finished are
+// shown, as the language promises for long work.
+func TestInterruptedSweepShowsPartialCurve(t *testing.T) {
+	s := newTestSession()
+	ctx, cancel := context.WithCancel(context.Background())
+	time.AfterFunc(300*time.Millisecond, cancel)
+	out := &collect{}
+	_, err := s.Execute(ctx, "cell", "fi = sweep(hh(), amplitude = span(0, 20, by = 0.5) uA/cm^2, duration = 5000 ms)", out)
+	var re *runtime.Error
+	if !errors.As(err, &re) || re.Kind != runtime.KindInterrupted || !strings.Contains(re.Msg, "amplitudes finished") {
+		t.Fatalf("got %v, want an Interrupted error that counts the amplitudes finished", err)
+	}
+	if _, ok := s.Lookup("fi"); ok {
+		t.Error("an interrupted cell bound fi")
+	}
+	svg := 0
+	for _, b := range out.bundles {
+		if _, ok := b.Data[display.MIMESVG]; ok {
+			svg++
+		}
+	}
+	if svg == 0 {
+		t.Error("the partial curve was not shown")
+	}
+}
