@@ -26,9 +26,9 @@ func (c *collect) Stream(string, string) {}
 func TestInterruptedSweepShowsPartialCurve(t *testing.T) {
 	s := newTestSession()
 	ctx, cancel := context.WithCancel(context.Background())
-	time.AfterFunc(300*time.Millisecond, cancel)
+	time.AfterFunc(500*time.Millisecond, cancel) // long enough for some amplitudes, short of all 41
 	out := &collect{}
-	_, err := s.Execute(ctx, "cell", "fi = sweep(hh(), amplitude = span(0, 20, by = 0.5) uA/cm^2, duration = 5000 ms)", out)
+	_, err := s.Execute(ctx, "cell", "fi = sweep(hh(), amplitude = span(0, 20, by = 0.5) uA/cm^2, duration = 2000 ms)", out)
 	var re *runtime.Error
 	if !errors.As(err, &re) || re.Kind != runtime.KindInterrupted || !strings.Contains(re.Msg, "amplitudes finished") {
 		t.Fatalf("got %v, want an Interrupted error that counts the amplitudes finished", err)
