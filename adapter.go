@@ -102,10 +102,4 @@ type lineOutput struct {
 	w io.Writer
 }
 
-func (o lineOutput) ProgressLine(text string, final bool) {
-	end := ""
-	if final {
-		end = "\n"
-	}
-	fmt.Fprintf(o.w, "\r\033[K%s%s", text, end)
-}
+func (o lineOutput) ProgressLine(text string, final bool) { progressLine(o.w, text, final) }

@@ -171,14 +171,32 @@ func (o *textOutput) Display(b display.Bundle, id string, update bool) {
 	fmt.Fprintln(o.stdout, b.PlainText())
 }
 
-// ProgressLine redraws one status line on stderr, where it does not mix
-// with the results on stdout.
-func (o *textOutput) ProgressLine(text string, final bool) {
-	end := ""
-	if final {
-		end = "\n"
+// ProgressLine shows progress on stderr, where it does not mix with the
+// results on stdout.
+func (o *textOutput) ProgressLine(text string, final bool) { progressLine(o.stderr, text, final) }
+
+// progressLine redraws one status line on a terminal; to a file or a pipe
+// (a CI log) it writes only the final line, without control codes.
+func progressLine(w io.Writer, text string, final bool) {
+	switch {
+	case isTerminal(w):
+		end := ""
+		if final {
+			end = "\n"
+		}
+		fmt.Fprintf(w, "\r\033[K%s%s", text, end)
+	case final:
+		fmt.Fprintln(w, text)
 	}
-	fmt.Fprintf(o.stderr, "\r\033[K%s%s", text, end)
+}
+
+func isTerminal(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	if !ok {
+		return false
+	}
+	st, err := f.Stat()
+	return err == nil && st.Mode()&os.ModeCharDevice != 0
 }
 
 func (o *textOutput) Stream(name, text string) {

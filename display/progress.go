@@ -229,6 +229,8 @@ func (p *Progress) htmlLocked() string {
 func formatDuration(d time.Duration) string {
 	s := d.Seconds()
 	switch {
+	case s < 0.01:
+		return "under 0.01 s" // below what a person can perceive anyway
 	case s < 10:
 		return FormatNumber(s, 2) + " s"
 	case s < 60:
