@@ -32,14 +32,22 @@ func runCommand(args []string, stdout, stderr io.Writer) int {
 	out := fs.String("o", "", "write the executed notebook to this file")
 	report := fs.String("html", "", "write a self-contained HTML report to this file")
 	keepGoing := fs.Bool("keep-going", false, "run the remaining cells after a failing one")
-	if err := fs.Parse(args); err != nil {
-		return 2
+	// Flags may come before or after the file name.
+	var files []string
+	for {
+		if err := fs.Parse(args); err != nil {
+			return 2
+		}
+		if fs.NArg() == 0 {
+			break
+		}
+		files, args = append(files, fs.Arg(0)), fs.Args()[1:]
 	}
-	if fs.NArg() != 1 {
+	if len(files) != 1 {
 		fs.Usage()
 		return 2
 	}
-	path := fs.Arg(0)
+	path := files[0]
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
 	defer stop()
 	if strings.HasSuffix(path, ".ipynb") || *out != "" || *report != "" {

@@ -345,7 +345,7 @@ func noiseFn(c *runtime.Call) (runtime.Value, error) {
 
 func recordedBuiltin() *runtime.Builtin {
 	return &runtime.Builtin{
-		Name: "recorded", Category: "stimuli", Returns: "a stimulus",
+		Name: "playback", Category: "stimuli", Returns: "a stimulus",
 		Doc: "A stimulus from recorded samples, such as two columns of a table: values[i] at time t[i] (strictly increasing). " +
 			`mode = "linear" interpolates between samples, "hold" keeps each value until the next sample; outside = "zero" makes it 0 outside the recording, "hold" keeps the end values.`,
 		Params: []runtime.Param{
@@ -383,5 +383,5 @@ func recordedFn(c *runtime.Call) (runtime.Value, error) {
 		return nil, runtime.ValueErrorf("recorded: needs at least 2 samples, got %d", len(t))
 	}
 	desc := fmt.Sprintf("recorded, %d samples %s", len(t), window(t[0], t[len(t)-1]))
-	return newStimulus("recorded", w, d, desc, t[len(t)-1])
+	return newStimulus("playback", w, d, desc, t[len(t)-1])
 }
