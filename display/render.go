@@ -4,7 +4,9 @@ import (
 	"bytes"
 	"fmt"
 	"io"
+	"math"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -32,10 +34,44 @@ func styleAxis(a *plot.Axis, label string, log bool) {
 	a.Tick.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(axisWidth)}
 	a.Tick.Label.Color, a.Tick.Label.Font = Ink, textFont(tickFontSize, false)
 	a.Padding = vg.Points(3)
+	a.Tick.Marker = cleanTicks{plot.DefaultTicks{}}
 	if log {
 		a.Scale = plot.LogScale{}
 		a.Tick.Marker = plot.LogTicks{Prec: -1}
 	}
+}
+
+// cleanTicks labels ticks with just the decimals their spacing needs
+// ("−25", "0.5", not "−25.00") and a true minus sign, as in the captions.
+type cleanTicks struct{ plot.Ticker }
+
+func (c cleanTicks) Ticks(lo, hi float64) []plot.Tick {
+	ts := c.Ticker.Ticks(lo, hi)
+	step := math.Inf(1)
+	prev := math.NaN()
+	for _, t := range ts {
+		if t.Label == "" {
+			continue
+		}
+		if !math.IsNaN(prev) {
+			step = math.Min(step, t.Value-prev)
+		}
+		prev = t.Value
+	}
+	dec := 0
+	if step > 0 && !math.IsInf(step, 0) {
+		dec = max(0, int(math.Ceil(-math.Log10(step)-1e-9)))
+	}
+	for i, t := range ts {
+		if t.Label != "" {
+			l := strconv.FormatFloat(t.Value, 'f', dec, 64)
+			if l == "-"+strconv.FormatFloat(0, 'f', dec, 64) {
+				l = l[1:] // no "−0"
+			}
+			ts[i].Label = strings.Replace(l, "-", "−", 1)
+		}
+	}
+	return ts
 }
 
 // blankTicks keeps a ticker's marks but drops their labels (upper panels
@@ -75,6 +111,7 @@ func (f *Figure) buildPlots(st [][]seriesStats) []*plot.Plot {
 		}
 		p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
 		auto = f.addSeries(p, pn, auto)
+		p.Legend.Left = legendLeft(pn, x0, x1, y0, y1)
 		plots[i] = p
 	}
 	return plots
@@ -117,6 +154,32 @@ func (f *Figure) addSeries(p *plot.Plot, pn Panel, auto int) int {
 		p.Legend = plot.NewLegend() // an empty legend draws nothing
 	}
 	return auto
+}
+
+// legendLeft says whether the legend should sit top left rather than top
+// right: where fewer data points lie in the top quarter of the panel on
+// that side (an f–I curve rises to the right, so its legend goes left).
+func legendLeft(pn Panel, x0, x1, y0, y1 float64) bool {
+	xm, yq := (x0+x1)/2, y0+0.6*(y1-y0)
+	left, right := 0, 0
+	for _, s := range pn.Series {
+		n := len(s.X)
+		if len(s.Y) < n {
+			n = len(s.Y)
+		}
+		step := max(1, n/2000) // a sample is enough for long lines
+		for i := 0; i < n; i += step {
+			if s.Y[i] < yq || math.IsNaN(s.X[i]) {
+				continue
+			}
+			if s.X[i] < xm {
+				left++
+			} else {
+				right++
+			}
+		}
+	}
+	return left < right
 }
 
 // draw renders the figure on a canvas of the figure's size.

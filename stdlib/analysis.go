@@ -487,7 +487,7 @@ func fiCurve(m *Model, res *neuron.SweepResult, d units.Dim) *Curve {
 			x, r, f = append(x, a), append(r, res.Rate[i]), append(f, res.FirstRate[i])
 		}
 	}
-	cv := NewSampledCurve("f–I curve of "+m.spec.title, x, d, r, units.Frequency, nil)
+	cv := NewSampledCurve(m.spec.title+" (f–I)", x, d, r, units.Frequency, nil)
 	cv.AddSeries("first_isi_rate", f)
 	return cv
 }

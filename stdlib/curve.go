@@ -306,7 +306,13 @@ func (c *Curve) Figure() (*display.Figure, error) {
 	}
 	p := display.Panel{XLabel: xa.Label, YLabel: Label(c.YName, yu), Series: []display.Series{main}}
 	for _, s := range c.Extra {
-		p.Series = append(p.Series, display.Series{Kind: main.Kind, Name: s.Name, X: xa.Data, Y: AxisIn("", s.Y, yu).Data})
+		// Drawn as lines so that they stay apart from the main points when
+		// they coincide (a LIF's first-ISI rate is its steady rate).
+		name := strings.ReplaceAll(s.Name, "_", " ")
+		if c.Name != "" {
+			name = c.Name + ", " + name
+		}
+		p.Series = append(p.Series, display.Series{Kind: display.Line, Name: name, X: xa.Data, Y: AxisIn("", s.Y, yu).Data})
 	}
 	return &display.Figure{Title: c.Name, Panels: []display.Panel{p}}, nil
 }

@@ -417,17 +417,55 @@ func (t *Trace) Figure() (*display.Figure, error) {
 		}
 		a := NewAxis(name, t.tr.Data[i], t.dims[i])
 		byDim[t.dims[i]] = slot{len(f.Panels), a.Unit}
-		h := 1.0
+		h, x, y := 1.0, ta.Data, a.Data
 		if i > 0 {
 			h = 0.5
+		} else if peak, ok := t.peak(); ok {
+			x, y = withSpikes(x, y, t.tr.Spikes, Scalar(peak, a.Unit), ta.Unit)
 		}
 		f.Panels = append(f.Panels, display.Panel{YLabel: a.Label, Height: h,
-			Series: []display.Series{{Kind: display.Line, Name: name, X: ta.Data, Y: a.Data}}})
+			Series: []display.Series{{Kind: display.Line, Name: name, X: x, Y: y}}})
 	}
 	in := NewAxis("input", t.tr.Input, t.inDim)
 	f.Panels = append(f.Panels, display.Panel{XLabel: ta.Label, YLabel: in.Label, Height: 0.35,
 		Series: []display.Series{{Kind: display.Line, Name: "input", X: ta.Data, Y: in.Data}}})
 	return f, nil
+}
+
+// peak is the voltage a reset model's spikes reach (its cut-off), if it has
+// one: the sampled trace misses the instant of the spike, which falls
+// between samples.
+func (t *Trace) peak() (float64, bool) {
+	nm, err := t.model.spec.build(t.model, 0)
+	if err != nil {
+		return 0, false
+	}
+	rs, ok := nm.(neuron.Resetter)
+	if !ok {
+		return 0, false
+	}
+	return rs.Peak(), true
+}
+
+// withSpikes returns the voltage line with a point at the cut-off at each
+// spike time, so every spike of a reset model is drawn to its peak (the
+// line then falls to the reset value at the next sample). x and y are in
+// display units, spike times in SI; the inputs are not modified.
+func withSpikes(x, y, spikes []float64, peak float64, tu units.Unit) ([]float64, []float64) {
+	if len(spikes) == 0 {
+		return x, y
+	}
+	ox := make([]float64, 0, len(x)+len(spikes))
+	oy := make([]float64, 0, len(y)+len(spikes))
+	k := 0
+	for i := range x {
+		for k < len(spikes) && Scalar(spikes[k], tu) <= x[i] {
+			ox, oy = append(ox, Scalar(spikes[k], tu)), append(oy, peak)
+			k++
+		}
+		ox, oy = append(ox, x[i]), append(oy, y[i])
+	}
+	return ox, oy
 }
 
 // dimLabel names a panel holding several variables of one dimension.
