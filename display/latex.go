@@ -29,6 +29,11 @@ var latexAccents = map[string]string{"dot": "\u0307", "ddot": "\u0308", "bar": "
 // latexText renders LaTeX as readable plain text: τ_m dV/dt = −(V − E_L).
 func latexText(s string) string { return strings.TrimSpace(renderLatex(s, false)) }
 
+// LatexText renders a LaTeX formula as readable plain text (Greek letters,
+// sub- and superscripts in Unicode), as model cards show equations in a
+// console; doc strings use it too.
+func LatexText(s string) string { return latexText(s) }
+
 // latexHTML renders LaTeX as HTML with <sub>, <sup> and Unicode symbols.
 func latexHTML(s string) string { return strings.TrimSpace(renderLatex(s, true)) }
 

@@ -111,7 +111,7 @@ func activationBuiltin(d activation.Descriptor, f activation.Func) *runtime.Buil
 
 func activationDoc(d activation.Descriptor, name string) string {
 	var s strings.Builder
-	fmt.Fprintf(&s, "The %s activation function, element-wise: %s, range %s (formulas in LaTeX).", name, d.Formula, d.Range)
+	fmt.Fprintf(&s, "The %s activation function, element-wise: %s, range %s.", name, display.LatexText(d.Formula), display.LatexText(d.Range))
 	s.WriteString(" NaN gives NaN and ±∞ give the limits of the function.")
 	if len(d.Params) > 0 && d.Params[0].Name == "gain" {
 		s.WriteString(" The gain a sets the steepness, f(a·x); as a → ∞ the function tends to the threshold function of the same range at every x ≠ 0.")
