@@ -23,7 +23,7 @@ var allowed = []struct {
 	{pkg: "runtime/syntax", may: nil},
 	{pkg: "runtime/units", may: nil},
 	{pkg: "runtime", may: []string{"runtime/syntax", "runtime/units", "display"}},
-	{pkg: "kernel", may: []string{"kernel/"}}, // its own sub-packages only
+	{pkg: "kernel", may: []string{"kernel", "kernel/"}}, // itself and its own sub-packages only
 	{pkg: "stdlib", may: []string{"runtime", "runtime/", "display", "stdlib/"}, exact: true},
 	{pkg: "stdlib/", may: nil},                // a domain package: nothing of ours
 	{pkg: "", may: []string{""}, exact: true}, // main wires everything
@@ -125,6 +125,9 @@ func TestImportRules(t *testing.T) {
 		{"runtime", "display", true},
 		{"kernel", "runtime", false},
 		{"kernel", "kernel/internal/fake", true},
+		{"kernel/notebook", "kernel", true},
+		{"kernel/notebook", "runtime", false},
+		{"stdlib/neuron", "stdlib", false},
 		{"stdlib/neuron", "runtime", false},
 		{"stdlib/neuron", "stdlib/stimulus", false},
 		{"stdlib", "stdlib/neuron", true},
