@@ -25,9 +25,10 @@ func (c *chunk) run(ctx context.Context) error {
 		}
 		if next < len(sc.times) && sc.times[next] < b || (k == sc.n-1 && !sc.lastFull()) {
 			next = c.splitStep(a, b, next)
+			c.requeue(k)
 			continue
 		}
-		c.fastStep(a, b)
+		c.fastStep(k, a, b)
 	}
 	return nil
 }
@@ -37,67 +38,101 @@ func (sc *schedule) lastFull() bool { return sc.dur-float64(sc.n-1)*sc.dt == sc.
 
 // setInput moves every neuron to a new shared input I, keeping V continuous.
 func (c *chunk) setInput(in float64) {
-	for j := range c.w {
-		v := c.base[j] + c.r[j]*in
-		c.w[j] += c.vinf[j] - v
-		c.vinf[j] = v
-		c.wth[j] = c.vth[j] - v
+	n := len(c.w)
+	w, base, r, vinf, vth, wth := c.w, c.base[:n], c.r[:n], c.vinf[:n], c.vth[:n], c.wth[:n]
+	for j := range w {
+		v := base[j] + r[j]*in
+		w[j] += vinf[j] - v
+		vinf[j] = v
+		wth[j] = vth[j] - v
 	}
 }
 
-// fastStep advances all neurons over a full step with the precomputed decays; only
-// spiking and refractory neurons leave the loop.
-func (c *chunk) fastStep(a, b float64) {
+// fastStep advances all neurons over the full grid step k = [a, b] with the
+// precomputed decays; only neurons that cross threshold leave the loop. The loop
+// goes four neurons at a time and stores a group only when none of it crosses, so a
+// crossing group is redone one by one from its unchanged start values; refractory
+// neurons ride along with decay 1, held at reset.
+func (c *chunk) fastStep(k int, a, b float64) {
 	w := c.w
-	dc, wth := c.dc[:len(w)], c.wth[:len(w)]
-	for j := range w {
-		x := w[j]
-		y := x * dc[j]
-		w[j] = y
-		if y >= wth[j] {
-			c.cross(j, a, b, x)
+	n := len(w)
+	dc, wth := c.dc[:n], c.wth[:n]
+	j := 0
+	for ; j+4 <= n; j += 4 {
+		w4, d4, t4 := w[j:j+4:j+4], dc[j:j+4:j+4], wth[j:j+4:j+4]
+		y0, y1, y2, y3 := w4[0]*d4[0], w4[1]*d4[1], w4[2]*d4[2], w4[3]*d4[3]
+		if y0 >= t4[0] || y1 >= t4[1] || y2 >= t4[2] || y3 >= t4[3] {
+			c.stepEach(j, j+4, k, a, b)
+			continue
+		}
+		w4[0], w4[1], w4[2], w4[3] = y0, y1, y2, y3
+	}
+	c.stepEach(j, n, k, a, b)
+	c.release(k, b)
+}
+
+// stepEach advances neurons lo..hi-1 over grid step k = [a, b] one by one.
+func (c *chunk) stepEach(lo, hi, k int, a, b float64) {
+	for j := lo; j < hi; j++ {
+		x := c.w[j]
+		y := x * c.dc[j]
+		c.w[j] = y
+		if y >= c.wth[j] {
+			c.cross(j, k, a, b, x)
 		}
 	}
-	c.release(b)
 }
 
-// cross handles neuron j, which started the step [a, b] at w0 and crossed threshold.
-func (c *chunk) cross(j int, a, b, w0 float64) {
+// cross handles neuron j, which started grid step k = [a, b] at w0 and crossed
+// threshold: it logs the spike, resets and holds j and queues its release.
+func (c *chunk) cross(j, k int, a, b, w0 float64) {
 	ts := a
 	if w0 < c.wth[j] {
 		ts = math.Min(a+c.tau[j]*math.Log(w0/c.wth[j]), b)
 	}
-	c.spikes[j] = append(c.spikes[j], ts)
+	c.log.add(j, ts)
 	c.w[j] = c.vres[j] - c.vinf[j]
 	c.dc[j] = 1 // held at reset
-	if math.IsInf(c.relEnd[j], -1) {
-		c.list = append(c.list, int32(j))
-	}
+	queued := !math.IsInf(c.relEnd[j], -1)
 	c.relEnd[j] = ts + c.ref[j]
+	if !queued {
+		c.wheel.due(j, k) // checked at the end of this step, like any due neuron
+	}
 }
 
-// release ends the refractory periods that finish by b and integrates those neurons
-// from their release time to b.
-func (c *chunk) release(b float64) {
-	keep := c.list[:0]
-	for _, j32 := range c.list {
+// release ends the refractory periods of the neurons due at grid step k that finish
+// by b and integrates them from their release time to b; the others wait further.
+func (c *chunk) release(k int, b float64) {
+	for _, j32 := range c.wheel.take(k) {
 		j := int(j32)
-		if c.relEnd[j] > b {
-			keep = append(keep, j32)
+		rel := c.relEnd[j]
+		if math.IsInf(rel, -1) {
+			continue // released already on a split step
+		}
+		if rel > b {
+			c.wheel.add(j, rel, k)
 			continue
 		}
-		a := c.relEnd[j]
 		c.relEnd[j], c.dc[j] = math.Inf(-1), c.d[j]
-		if c.advanceOne(j, a, b) {
-			keep = append(keep, j32)
+		if c.advanceOne(j, rel, b) {
+			c.wheel.add(j, c.relEnd[j], k)
 		}
 	}
-	c.list = keep
+}
+
+// requeue rebuilds the release wheel after split step k from the refractory ends,
+// which the split step keeps up to date on its own.
+func (c *chunk) requeue(k int) {
+	c.wheel.clear()
+	for j, rel := range c.relEnd {
+		if !math.IsInf(rel, -1) {
+			c.wheel.add(j, rel, k)
+		}
+	}
 }
 
 // advanceOne integrates non-refractory neuron j over [a, b] at constant input with
-// exact crossings; it reports whether j ends refractory (then it is not in c.list
-// and the caller keeps it).
+// exact crossings; it reports whether j ends refractory (relEnd set, not queued).
 func (c *chunk) advanceOne(j int, a, b float64) bool {
 	for {
 		w1 := c.w[j] * math.Exp(-(b-a)/c.tau[j])
@@ -109,7 +144,7 @@ func (c *chunk) advanceOne(j int, a, b float64) bool {
 		if c.w[j] < c.wth[j] {
 			ts = math.Min(a+c.tau[j]*math.Log(c.w[j]/c.wth[j]), b)
 		}
-		c.spikes[j] = append(c.spikes[j], ts)
+		c.log.add(j, ts)
 		c.w[j] = c.vres[j] - c.vinf[j]
 		if rel := ts + c.ref[j]; rel > b || (rel == b && c.ref[j] > 0) {
 			c.relEnd[j], c.dc[j] = rel, 1
@@ -141,19 +176,15 @@ func (c *chunk) splitStep(a, b float64, next int) int {
 
 // slowPiece advances every neuron over [a, e] without the precomputed decay.
 func (c *chunk) slowPiece(a, e float64) {
-	c.list = c.list[:0]
 	for j := range c.w {
 		start := a
 		if !math.IsInf(c.relEnd[j], -1) {
 			if c.relEnd[j] >= e {
-				c.list = append(c.list, int32(j))
 				continue
 			}
 			start = c.relEnd[j]
 			c.relEnd[j], c.dc[j] = math.Inf(-1), c.d[j]
 		}
-		if c.advanceOne(j, start, e) {
-			c.list = append(c.list, int32(j))
-		}
+		c.advanceOne(j, start, e)
 	}
 }

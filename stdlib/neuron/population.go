@@ -136,8 +136,8 @@ type chunk struct {
 	base, r                []float64 // V∞ = base + r·I
 	w, wth, dc, vinf       []float64 // state: w = V − V∞, threshold in w, current decay
 	relEnd                 []float64 // end of refractory period (−Inf when not refractory)
-	list                   []int32   // refractory neurons
-	spikes                 [][]float64
+	wheel                  releaseWheel
+	log                    spikeLog
 }
 
 // newChunk copies cells lo..hi-1 into a chunk at input sc.i0.
@@ -145,7 +145,7 @@ func newChunk(p PopulationProblem, lo, hi int, dt float64, sc *schedule) *chunk 
 	m := hi - lo
 	f := func() []float64 { return make([]float64, m) }
 	c := &chunk{sc: sc, tau: f(), d: f(), vth: f(), vres: f(), ref: f(), base: f(), r: f(),
-		w: f(), wth: f(), dc: f(), vinf: f(), relEnd: f(), spikes: make([][]float64, m)}
+		w: f(), wth: f(), dc: f(), vinf: f(), relEnd: f()}
 	for j := 0; j < m; j++ {
 		cell := &p.Cells[lo+j]
 		c.tau[j], c.vth[j], c.vres[j], c.ref[j] = cell.C/cell.GL, cell.VTh, cell.VReset, cell.TRef
@@ -162,13 +162,14 @@ func newChunk(p PopulationProblem, lo, hi int, dt float64, sc *schedule) *chunk 
 		c.vinf[j] = c.base[j] + c.r[j]*sc.i0
 		c.w[j], c.wth[j], c.relEnd[j] = v0-c.vinf[j], c.vth[j]-c.vinf[j], math.Inf(-1)
 	}
+	c.wheel = newReleaseWheel(c.ref, dt)
 	return c
 }
 
 // store copies the chunk's results into res at offset lo.
 func (c *chunk) store(res *PopulationResult, lo int) {
+	copy(res.Spikes[lo:], c.log.trains(len(c.w)))
 	for j := range c.w {
-		res.Spikes[lo+j] = c.spikes[j]
 		res.V[lo+j] = c.w[j] + c.vinf[j]
 	}
 }

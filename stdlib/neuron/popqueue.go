@@ -1,0 +1,128 @@
+package neuron
+
+import "math"
+
+// releaseWheel holds the refractory neurons of a chunk by the grid step at which
+// they may be released, so a step touches only the neurons whose period could end in
+// it instead of scanning every refractory neuron. The bucket a neuron sits in is a
+// lower bound on its release step; the exact test (relEnd ≤ step end, the same
+// comparison as a scan) is made when the bucket comes up, and a neuron not yet due
+// moves on to a later bucket. Periods longer than the wheel simply go round again.
+type releaseWheel struct {
+	slots [][]int32 // slot s holds neurons due at steps ≡ s (mod len(slots))
+	mask  int
+	dt    float64
+}
+
+// newReleaseWheel sizes the wheel to cover the longest refractory period in ref
+// (s) at step dt, as a power of two between 4 and 4096 slots.
+func newReleaseWheel(ref []float64, dt float64) releaseWheel {
+	longest := 0.0
+	for _, r := range ref {
+		longest = math.Max(longest, r)
+	}
+	size := 4
+	for size < 4096 && float64(size) < longest/dt+3 {
+		size *= 2
+	}
+	return releaseWheel{slots: make([][]int32, size), mask: size - 1, dt: dt}
+}
+
+// add queues neuron j, refractory until rel (s), found not yet due at step k.
+func (q *releaseWheel) add(j int, rel float64, k int) {
+	s := k + 1
+	// rel/dt − 2 undershoots the true release step by at least one step of rounding
+	// margin; the float64 comparison keeps huge periods from overflowing int.
+	if e := rel/q.dt - 2; e > float64(s) {
+		s = k + len(q.slots) - 1
+		if e < float64(s) {
+			s = int(e)
+		}
+	}
+	q.slots[s&q.mask] = append(q.slots[s&q.mask], int32(j))
+}
+
+// due queues neuron j for the check at the end of the current step k.
+func (q *releaseWheel) due(j, k int) {
+	q.slots[k&q.mask] = append(q.slots[k&q.mask], int32(j))
+}
+
+// take empties and returns the bucket of step k; the returned slice stays valid
+// until the bucket comes round again.
+func (q *releaseWheel) take(k int) []int32 {
+	b := q.slots[k&q.mask]
+	q.slots[k&q.mask] = b[:0]
+	return b
+}
+
+// clear empties every bucket, keeping their storage.
+func (q *releaseWheel) clear() {
+	for i := range q.slots {
+		q.slots[i] = q.slots[i][:0]
+	}
+}
+
+// spikeEvent is one spike of a chunk: the neuron's index in the chunk and the time.
+type spikeEvent struct {
+	j int32
+	t float64
+}
+
+// spikeLog is a chunk's spikes in the order they were found, in fixed-size blocks
+// so that growing it never copies what is already logged.
+type spikeLog struct {
+	full [][]spikeEvent // filled blocks
+	cur  []spikeEvent   // block being filled
+	n    int            // events in full
+}
+
+// logBlock is the number of events per block (64 KiB).
+const logBlock = 4096
+
+// add logs a spike of neuron j at time t (s).
+func (l *spikeLog) add(j int, t float64) {
+	if len(l.cur) == cap(l.cur) {
+		if l.cur != nil {
+			l.full, l.n = append(l.full, l.cur), l.n+len(l.cur)
+		}
+		l.cur = make([]spikeEvent, 0, logBlock)
+	}
+	l.cur = append(l.cur, spikeEvent{int32(j), t})
+}
+
+// each calls f on every logged event in order.
+func (l *spikeLog) each(f func(e spikeEvent)) {
+	for _, b := range l.full {
+		for _, e := range b {
+			f(e)
+		}
+	}
+	for _, e := range l.cur {
+		f(e)
+	}
+}
+
+// trains splits the log, in time order per neuron, into one slice per neuron of m,
+// all cut from one backing array with their capacity capped so an append by the
+// caller cannot run into a neighbour's spikes. Neurons without spikes get nil, as
+// per-neuron appends would leave them.
+func (l *spikeLog) trains(m int) [][]float64 {
+	first := make([]int32, m+1) // first[j] becomes neuron j's first index
+	l.each(func(e spikeEvent) { first[e.j+1]++ })
+	for j := 1; j <= m; j++ {
+		first[j] += first[j-1]
+	}
+	all := make([]float64, l.n+len(l.cur))
+	next := append([]int32(nil), first[:m]...)
+	l.each(func(e spikeEvent) {
+		all[next[e.j]] = e.t
+		next[e.j]++
+	})
+	out := make([][]float64, m)
+	for j := range out {
+		if lo, hi := first[j], first[j+1]; hi > lo {
+			out[j] = all[lo:hi:hi]
+		}
+	}
+	return out
+}
