@@ -5,17 +5,23 @@ import (
 	"errors"
 	"strings"
 	"testing"
-	"time"
 
 	"github.com/loligo-lab/loligo/display"
 	"github.com/loligo-lab/loligo/runtime"
 )
 
-type collect struct{ bundles []display.Bundle }
+// collect keeps the outputs of a cell; onUpdate runs at each in-place
+// update (a progress report after some work is done).
+type collect struct {
+	bundles  []display.Bundle
+	onUpdate func()
+}
 
 func (c *collect) Display(b display.Bundle, id string, update bool) {
 	if !update {
 		c.bundles = append(c.bundles, b)
+	} else if c.onUpdate != nil {
+		c.onUpdate()
 	}
 }
 func (c *collect) Stream(string, string) {}
@@ -26,8 +32,10 @@ func (c *collect) Stream(string, string) {}
 func TestInterruptedSweepShowsPartialCurve(t *testing.T) {
 	s := newTestSession()
 	ctx, cancel := context.WithCancel(context.Background())
-	time.AfterFunc(500*time.Millisecond, cancel) // long enough for some amplitudes, short of all 41
-	out := &collect{}
+	defer cancel()
+	// Interrupt at the first progress report after some amplitudes are done
+	// (reports come after finished amplitudes), whatever the machine's speed.
+	out := &collect{onUpdate: cancel}
 	_, err := s.Execute(ctx, "cell", "fi = sweep(hh(), amplitude = span(0, 20, by = 0.5) uA/cm^2, duration = 2000 ms)", out)
 	var re *runtime.Error
 	if !errors.As(err, &re) || re.Kind != runtime.KindInterrupted || !strings.Contains(re.Msg, "amplitudes finished") {
