@@ -72,6 +72,14 @@ func (sm *sim) sub(a, e float64) (float64, error) {
 // step writes into dst the state one step of length h from (a, y); dst must not
 // alias y.
 func (sm *sim) step(dst, y []float64, a, h float64) {
+	if q := sm.hh; q != nil {
+		if sm.st.Method == ExponentialEuler {
+			q.expEuler(load(y), h, sm.input(a+h/2)).store(dst)
+		} else {
+			q.rk4(load(y), h, sm.input(a), sm.input(a+h/2), sm.input(a+h)).store(dst)
+		}
+		return
+	}
 	if sm.st.Method == ExponentialEuler {
 		copy(dst, y)
 		sm.m.(ExpEulerStepper).ExpEulerStep(dst, h, sm.input(a+h/2))

@@ -26,12 +26,13 @@ type sim struct {
 	tmp    []float64
 	rec    []int
 	tr     *Trace
-	nrec   int     // samples recorded
-	held   float64 // value y[0] is held at while refractory
-	refEnd float64 // end of the refractory period, s
-	next   float64 // next input change (piecewise inputs)
-	inA    float64 // input on the current piecewise interval
-	tau    float64 // membrane time constant (Exact method)
+	nrec   int       // samples recorded
+	held   float64   // value y[0] is held at while refractory
+	refEnd float64   // end of the refractory period, s
+	next   float64   // next input change (piecewise inputs)
+	inA    float64   // input on the current piecewise interval
+	tau    float64   // membrane time constant (Exact method)
+	hh     *hhKernel // non-nil for HH with a fixed-step method
 }
 
 // zeroInput is the input used when Problem.Input is nil.
@@ -65,6 +66,9 @@ func (sm *sim) setup(p Problem, vars []Var, samples int) {
 	sm.rs, _ = p.Model.(Resetter)
 	if d, ok := p.Model.(Detector); ok && sm.rs == nil {
 		sm.det = d.Detect()
+	}
+	if h, ok := p.Model.(*HH); ok && (sm.st.Method == RK4 || sm.st.Method == ExponentialEuler) {
+		sm.hh = newHHKernel(h)
 	}
 	if r, ok := p.Model.(*Rate); ok {
 		sm.inst = r.instant

@@ -1,0 +1,88 @@
+package neuron
+
+import "math"
+
+// hhState is the HH state (V in volts, then the gates) as four scalars, so that a
+// step passes it in registers instead of through slices.
+type hhState struct{ v, m, h, n float64 }
+
+// hhKernel is an HH membrane with the factors that do not change during a run (Q10
+// factor, unit conversions) worked out once. Its derivative and steps do exactly the
+// floating-point operations of HH.Deriv, the RK4 stage sums and HH.ExpEulerStep, in
+// the same order, so a run through the kernel is bit-identical to one through the
+// Model interface; it saves the interface calls, the slice loops and the per-call
+// Q10 factor.
+type hhKernel struct {
+	k            float64 // 1e3·φ: gate rates from 1/ms to 1/s
+	phi          float64 // Q10 factor
+	gna, gk, gl  float64 // mS/cm²
+	ena, ek, el  float64 // mV
+	c100         float64 // µF/cm²
+	eNa, eK, eL  float64 // V, for the exponential Euler V∞ as HH.ExpEulerStep forms it
+	gNa, gK, gL0 float64 // S/m², likewise
+}
+
+// newHHKernel precomputes the constant factors of m.
+func newHHKernel(m *HH) *hhKernel {
+	phi := m.phi()
+	return &hhKernel{k: 1e3 * phi, phi: phi,
+		gna: m.GNa * 0.1, gk: m.GK * 0.1, gl: m.GL * 0.1,
+		ena: m.ENa * 1e3, ek: m.EK * 1e3, el: m.EL * 1e3, c100: m.C * 100,
+		eNa: m.ENa, eK: m.EK, eL: m.EL, gNa: m.GNa, gK: m.GK, gL0: m.GL}
+}
+
+// deriv returns the time derivative of s at input in, as HH.Deriv writes it.
+func (q *hhKernel) deriv(s hhState, in float64) hhState {
+	v := s.v * 1e3
+	am, bm, ah, bh, an, bn := hhRates(v)
+	ionic := q.gna*s.m*s.m*s.m*s.h*(v-q.ena) + q.gk*s.n*s.n*s.n*s.n*(v-q.ek) + q.gl*(v-q.el)
+	return hhState{
+		(in*100 - ionic) / q.c100,
+		q.k * (am*(1-s.m) - bm*s.m),
+		q.k * (ah*(1-s.h) - bh*s.h),
+		q.k * (an*(1-s.n) - bn*s.n),
+	}
+}
+
+// axpy returns y + c·d component by component.
+func (y hhState) axpy(c float64, d hhState) hhState {
+	return hhState{y.v + c*d.v, y.m + c*d.m, y.h + c*d.h, y.n + c*d.n}
+}
+
+// rk4 is the classical Runge–Kutta step of length h from y with the inputs at the
+// start, middle and end of the step.
+func (q *hhKernel) rk4(y hhState, h, in0, inm, in1 float64) hhState {
+	k1 := q.deriv(y, in0)
+	k2 := q.deriv(y.axpy(h/2, k1), inm)
+	k3 := q.deriv(y.axpy(h/2, k2), inm)
+	k4 := q.deriv(y.axpy(h, k3), in1)
+	c := h / 6
+	return hhState{
+		y.v + c*(k1.v+2*k2.v+2*k3.v+k4.v),
+		y.m + c*(k1.m+2*k2.m+2*k3.m+k4.m),
+		y.h + c*(k1.h+2*k2.h+2*k3.h+k4.h),
+		y.n + c*(k1.n+2*k2.n+2*k3.n+k4.n),
+	}
+}
+
+// expEuler is HH.ExpEulerStep over dt seconds at input in.
+func (q *hhKernel) expEuler(y hhState, dt, in float64) hhState {
+	h := dt * 1e3 * q.phi
+	v := y.v * 1e3
+	am, bm, ah, bh, an, bn := hhRates(v)
+	gm, gh, gn := gateStep(y.m, am, bm, h), gateStep(y.h, ah, bh, h), gateStep(y.n, an, bn, h)
+	gna := q.gNa * 0.1 * gm * gm * gm * gh
+	gk := q.gK * 0.1 * gn * gn * gn * gn
+	gl := q.gL0 * 0.1
+	g := gna + gk + gl
+	vinf := (gna*q.eNa*1e3 + gk*q.eK*1e3 + gl*q.eL*1e3 + in*100) / g
+	return hhState{(vinf + (v-vinf)*math.Exp(-dt*1e3*g/q.c100)) * 1e-3, gm, gh, gn}
+}
+
+// load reads an hhState from y; store writes s into dst.
+func load(y []float64) hhState { _ = y[3]; return hhState{y[0], y[1], y[2], y[3]} }
+
+func (s hhState) store(dst []float64) {
+	_ = dst[3]
+	dst[0], dst[1], dst[2], dst[3] = s.v, s.m, s.h, s.n
+}
