@@ -52,6 +52,32 @@ func TestLatexText(t *testing.T) {
 		{`a < b`, "a < b", "a &lt; b"},
 		{`\unknown`, `\unknown`, `\unknown`},
 		{`g_{Na} m^3 h`, "g_Na m^3 h", "g<sub>Na</sub> m<sup>3</sup> h"},
+		// The formulas and ranges of stdlib/activation's descriptor table.
+		// The readings follow the ISO 80000-2:2019 names of the functions
+		// (log, arctan, sgn, max; from memory) and the usual spoken form of a cases
+		// environment, "value if condition" (common practice).
+		{`\sigma(az) = \frac{1}{1+e^{-az}}`, "σ(az) = 1/(1 + e^(−az))", "σ(az) = 1/(1 + e<sup>−az</sup>)"},
+		{`\arctan(az)`, "arctan(az)", "arctan(az)"},
+		{`(-\pi/2, \pi/2)`, "(−π/2, π/2)", "(−π/2, π/2)"},
+		{`H(z) = \begin{cases}0 & z<0\\ h_0 & z=0\\ 1 & z>0\end{cases}`,
+			"H(z) = 0 if z < 0; h_0 if z = 0; 1 if z > 0",
+			"H(z) = 0 if z &lt; 0; h<sub>0</sub> if z = 0; 1 if z &gt; 0"},
+		{`\{0, h_0, 1\}`, "{0, h_0, 1}", "{0, h<sub>0</sub>, 1}"},
+		{`\operatorname{sgn}(z) = \begin{cases}-1 & z<0\\ s_0 & z=0\\ 1 & z>0\end{cases}`,
+			"sgn(z) = −1 if z < 0; s_0 if z = 0; 1 if z > 0",
+			"sgn(z) = −1 if z &lt; 0; s<sub>0</sub> if z = 0; 1 if z &gt; 0"},
+		{`\max(0, z)`, "max(0, z)", "max(0, z)"},
+		{`\begin{cases}r z & z\ge 0\\ l z & z<0\end{cases}`, "r z if z ≥ 0; l z if z < 0", "r z if z ≥ 0; l z if z &lt; 0"},
+		{`\frac{1}{a}\log(1+e^{az})`, "(1/a) log(1 + e^(az))", "(1/a) log(1 + e<sup>az</sup>)"},
+		{`\begin{cases}z & z>0\\ \alpha(e^{z}-1) & z\le 0\end{cases}`,
+			"z if z > 0; α(e^z − 1) if z ≤ 0", "z if z &gt; 0; α(e<sup>z</sup> − 1) if z ≤ 0"},
+		{`(-\alpha, \infty)`, "(−α, ∞)", "(−α, ∞)"},
+		// Spacing and signs: a minus after an operator or at the start of
+		// a group or script is unary; operator names after an operand are
+		// spaced; an \end without \begin is dropped.
+		{`x^{-1} - 2\sin x`, "x^(−1) − 2 sin x", "x<sup>−1</sup> − 2 sin x"},
+		{`V_{th}\end{cases}`, "V_th", "V<sub>th</sub>"},
+		{`\frac{a}{b} = c`, "a/b = c", "a/b = c"},
 	}
 	for _, c := range cases {
 		if got := latexText(c.in); got != c.text {
