@@ -7,6 +7,9 @@ import (
 
 // runFixed integrates with a fixed-step method (RK4 or ExponentialEuler).
 func (sm *sim) runFixed(ctx context.Context) error {
+	if sm.hh != nil {
+		return sm.runHH(ctx)
+	}
 	sm.record(0, 0, sm.y)
 	for k := 1; k <= sm.n; k++ {
 		if err := cancelled(ctx, k); err != nil {

@@ -1,6 +1,9 @@
 package neuron
 
-import "math"
+import (
+	"context"
+	"math"
+)
 
 // hhState is the HH state (V in volts, then the gates) as four scalars, so that a
 // step passes it in registers instead of through slices.
@@ -85,4 +88,61 @@ func load(y []float64) hhState { _ = y[3]; return hhState{y[0], y[1], y[2], y[3]
 func (s hhState) store(dst []float64) {
 	_ = dst[3]
 	dst[0], dst[1], dst[2], dst[3] = s.v, s.m, s.h, s.n
+}
+
+// finite reports whether every component of s is finite: x·0 is 0 for finite x and
+// NaN for ±Inf or NaN, so one comparison covers all four.
+func (s hhState) finite() bool {
+	z := s.v*0 + s.m*0 + s.h*0 + s.n*0
+	return z == z
+}
+
+// hhStep is one kernel step of length h from (a, y) with the run's method.
+func (sm *sim) hhStep(y hhState, a, h float64) hhState {
+	if sm.st.Method == ExponentialEuler {
+		return sm.hh.expEuler(y, h, sm.input(a+h/2))
+	}
+	return sm.hh.rk4(y, h, sm.input(a), sm.input(a+h/2), sm.input(a+h))
+}
+
+// runHH is runFixed for the HH kernel. HH has no reset or refractory period, so a
+// sub-interval is one step, a finiteness check and a threshold test; the state stays
+// in registers and goes to sm.y only to be recorded, at a spike and at the end.
+func (sm *sim) runHH(ctx context.Context) error {
+	sm.record(0, 0, sm.y)
+	y := load(sm.y)
+	defer func() { y.store(sm.y) }()
+	due := sm.st.Every // steps until the next recorded grid point
+	for k := 1; k <= sm.n; k++ {
+		if err := cancelled(ctx, k); err != nil {
+			return err
+		}
+		a, b := sm.gridTime(k-1), sm.gridTime(k)
+		for a < b {
+			e := sm.segment(a, b)
+			if e <= a {
+				e = b
+			}
+			y1 := sm.hhStep(y, a, e-a)
+			if !y1.finite() {
+				y1.store(sm.y1)
+				return sm.checkFiniteState(e, sm.y1)
+			}
+			if y.v < sm.det && y1.v >= sm.det {
+				y.store(sm.y)
+				y1.store(sm.y1)
+				if err := sm.spike(sm.hermite(a, e-a)); err != nil {
+					return err
+				}
+			}
+			y, a = y1, e
+		}
+		sm.tr.Steps++
+		if due--; due == 0 || k == sm.n {
+			due = sm.st.Every
+			y.store(sm.y)
+			sm.keep(b, sm.y)
+		}
+	}
+	return nil
 }

@@ -137,6 +137,11 @@ func (sm *sim) record(k int, t float64, y []float64) {
 	if k%sm.st.Every != 0 && k != sm.n {
 		return
 	}
+	sm.keep(t, y)
+}
+
+// keep appends the state y at time t to the trace.
+func (sm *sim) keep(t float64, y []float64) {
 	in := sm.in.At(t)
 	if sm.inst != nil {
 		sm.inst(y, in)
