@@ -23,6 +23,7 @@ var allowed = []struct {
 	{pkg: "runtime/syntax", may: nil},
 	{pkg: "runtime/units", may: nil},
 	{pkg: "runtime", may: []string{"runtime/syntax", "runtime/units", "display"}},
+	{pkg: "runtime/langtest", may: []string{"runtime", "display"}, exact: true}, // a test helper over the runtime
 	{pkg: "kernel", may: []string{"kernel", "kernel/"}}, // itself and its own sub-packages only
 	{pkg: "stdlib", may: []string{"runtime", "runtime/", "display", "stdlib/"}, exact: true},
 	{pkg: "stdlib/", may: nil},                // a domain package: nothing of ours
@@ -123,6 +124,8 @@ func TestImportRules(t *testing.T) {
 		{"runtime/syntax", "runtime/units", false},
 		{"runtime", "kernel", false},
 		{"runtime", "display", true},
+		{"runtime/langtest", "runtime", true},
+		{"runtime/langtest", "stdlib", false},
 		{"kernel", "runtime", false},
 		{"kernel", "kernel/internal/fake", true},
 		{"kernel/notebook", "kernel", true},
