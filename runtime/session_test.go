@@ -194,3 +194,25 @@ func BenchmarkCell50(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkCell50Typical is a 50-line cell shaped like the examples' cells:
+// bindings of quantities and short formulas of two to four operations.
+func BenchmarkCell50Typical(b *testing.B) {
+	lines := []string{
+		"C = 150 pF", "g_L = 7.5 nS", "E_L = -68 mV", "V_th = -48 mV", "I = 250 pA",
+		"tau_m = C / g_L", "R = 1 / g_L", "V_inf = E_L + I * R", "dV = (V_inf - V_th) in mV",
+		"t99 = tau_m * log(100)",
+	}
+	var src strings.Builder
+	for i := 0; i < 50; i++ {
+		src.WriteString(lines[i%len(lines)] + "\n")
+	}
+	s := NewSession(NewRegistry())
+	code := src.String()
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := s.Execute(context.Background(), "bench", code, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
