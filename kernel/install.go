@@ -10,6 +10,7 @@ import (
 	"path/filepath"
 	"regexp"
 	"sort"
+	"strings"
 )
 
 // KernelSpec is the content of kernel.json.
@@ -106,6 +107,9 @@ func specFiles(display, mode string) (map[string][]byte, error) {
 	if err != nil {
 		return nil, fmt.Errorf("kernel: cannot find the running binary (%v); run loligo by its path", err)
 	}
+	if inBuildCache(exe) {
+		return nil, fmt.Errorf("kernel: this binary (%s) is a temporary one from `go run` and will be deleted; build it first (go build -o loligo .) and run ./loligo install", exe)
+	}
 	argv := []string{exe, "kernel", "--connection-file", "{connection_file}"}
 	if mode == "signal" {
 		argv = append(argv, "--interrupt-mode", "signal")
@@ -180,4 +184,11 @@ func writeAtomic(path string, data []byte) error {
 		return fmt.Errorf("kernel: cannot write %s: %v", path, err)
 	}
 	return nil
+}
+
+// inBuildCache reports whether exe is a binary that `go run` built in a
+// temporary folder, which a kernelspec must not point at.
+func inBuildCache(exe string) bool {
+	dir := filepath.ToSlash(filepath.Dir(exe))
+	return strings.Contains(dir, "/go-build") && strings.HasSuffix(dir, "/exe")
 }
