@@ -86,10 +86,7 @@ func (c *chunk) stepEach(lo, hi, k int, a, b float64) {
 // cross handles neuron j, which started grid step k = [a, b] at w0 and crossed
 // threshold: it logs the spike, resets and holds j and queues its release.
 func (c *chunk) cross(j, k int, a, b, w0 float64) {
-	ts := a
-	if w0 < c.wth[j] {
-		ts = math.Min(a+c.tau[j]*math.Log(w0/c.wth[j]), b)
-	}
+	ts := crossTime(a, b, w0, c.wth[j], c.tau[j])
 	c.log.add(j, ts)
 	c.w[j] = c.vres[j] - c.vinf[j]
 	c.dc[j] = 1 // held at reset
@@ -140,10 +137,7 @@ func (c *chunk) advanceOne(j int, a, b float64) bool {
 			c.w[j] = w1
 			return false
 		}
-		ts := a
-		if c.w[j] < c.wth[j] {
-			ts = math.Min(a+c.tau[j]*math.Log(c.w[j]/c.wth[j]), b)
-		}
+		ts := crossTime(a, b, c.w[j], c.wth[j], c.tau[j])
 		c.log.add(j, ts)
 		c.w[j] = c.vres[j] - c.vinf[j]
 		if rel := ts + c.ref[j]; rel > b || (rel == b && c.ref[j] > 0) {
@@ -153,6 +147,19 @@ func (c *chunk) advanceOne(j int, a, b float64) bool {
 			a = rel
 		}
 	}
+}
+
+// crossTime returns when w, starting at w0 at time a and decaying with time constant
+// tau, reaches wth: a + τ ln(w0/wth), at most b, or a when w0 is at or beyond wth
+// already. The comparison with b does what math.Min does for these finite times.
+func crossTime(a, b, w0, wth, tau float64) float64 {
+	if !(w0 < wth) {
+		return a
+	}
+	if ts := a + tau*math.Log(w0/wth); !(ts > b) {
+		return ts
+	}
+	return b
 }
 
 // splitStep advances over [a, b] in pieces at the input changes inside it, with a

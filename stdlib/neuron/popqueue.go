@@ -11,7 +11,7 @@ import "math"
 type releaseWheel struct {
 	slots [][]int32 // slot s holds neurons due at steps ≡ s (mod len(slots))
 	mask  int
-	dt    float64
+	perDt float64 // 1/dt, s⁻¹
 }
 
 // newReleaseWheel sizes the wheel to cover the longest refractory period in ref
@@ -25,15 +25,16 @@ func newReleaseWheel(ref []float64, dt float64) releaseWheel {
 	for size < 4096 && float64(size) < longest/dt+3 {
 		size *= 2
 	}
-	return releaseWheel{slots: make([][]int32, size), mask: size - 1, dt: dt}
+	return releaseWheel{slots: make([][]int32, size), mask: size - 1, perDt: 1 / dt}
 }
 
 // add queues neuron j, refractory until rel (s), found not yet due at step k.
 func (q *releaseWheel) add(j int, rel float64, k int) {
 	s := k + 1
-	// rel/dt − 2 undershoots the true release step by at least one step of rounding
-	// margin; the float64 comparison keeps huge periods from overflowing int.
-	if e := rel/q.dt - 2; e > float64(s) {
+	// The release step r has (r+1)·dt ≥ rel, so r ≥ rel/dt − 1; taking off 0.001
+	// more covers the rounding of rel·(1/dt) for any run below 10¹² steps, and the
+	// float64 comparison keeps huge periods from overflowing int.
+	if e := rel*q.perDt - 1.001; e > float64(s) {
 		s = k + len(q.slots) - 1
 		if e < float64(s) {
 			s = int(e)
@@ -90,34 +91,29 @@ func (l *spikeLog) add(j int, t float64) {
 	l.cur = append(l.cur, spikeEvent{int32(j), t})
 }
 
-// each calls f on every logged event in order.
-func (l *spikeLog) each(f func(e spikeEvent)) {
-	for _, b := range l.full {
-		for _, e := range b {
-			f(e)
-		}
-	}
-	for _, e := range l.cur {
-		f(e)
-	}
-}
-
 // trains splits the log, in time order per neuron, into one slice per neuron of m,
 // all cut from one backing array with their capacity capped so an append by the
 // caller cannot run into a neighbour's spikes. Neurons without spikes get nil, as
 // per-neuron appends would leave them.
 func (l *spikeLog) trains(m int) [][]float64 {
 	first := make([]int32, m+1) // first[j] becomes neuron j's first index
-	l.each(func(e spikeEvent) { first[e.j+1]++ })
+	blocks := append(l.full, l.cur)
+	for _, b := range blocks {
+		for _, e := range b {
+			first[e.j+1]++
+		}
+	}
 	for j := 1; j <= m; j++ {
 		first[j] += first[j-1]
 	}
 	all := make([]float64, l.n+len(l.cur))
 	next := append([]int32(nil), first[:m]...)
-	l.each(func(e spikeEvent) {
-		all[next[e.j]] = e.t
-		next[e.j]++
-	})
+	for _, b := range blocks {
+		for _, e := range b {
+			all[next[e.j]] = e.t
+			next[e.j]++
+		}
+	}
 	out := make([][]float64, m)
 	for j := range out {
 		if lo, hi := first[j], first[j+1]; hi > lo {
