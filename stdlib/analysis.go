@@ -495,11 +495,12 @@ func fiCurve(m *Model, res *neuron.SweepResult, d units.Dim) *Curve {
 func rheobaseBuiltin() *runtime.Builtin {
 	return &runtime.Builtin{
 		Name: "rheobase", Category: "analysis", Returns: "a current (or current density)",
-		Doc: "The rheobase: the smallest amplitude of a long current step (duration) that makes the model fire at least one spike, found by bisection to the relative tolerance. " +
-			"For a model that fires only above a finite rate (Hodgkin–Huxley, type II) it is where firing starts abruptly.",
+		Doc: "The rheobase: the smallest amplitude of a long current step (duration) that makes the model fire at least min_spikes spikes during the step, found by bisection to the relative tolerance. " +
+			"With the default of one spike it is the threshold of a single spike; a larger min_spikes asks for repetitive firing, which for a type II model (Hodgkin–Huxley) starts abruptly at a higher amplitude.",
 		Source: "bisection on the step amplitude; rheobase as defined in Dayan & Abbott (2001), ch. 5",
 		Params: append([]runtime.Param{{Name: "model", Kind: runtime.KindAny, Doc: "a spiking model"},
-			{Name: "tolerance", Kind: runtime.KindNumber, Dimensionless: true, Default: "1e-3", Doc: "relative width of the final bracket"}},
+			{Name: "tolerance", Kind: runtime.KindNumber, Dimensionless: true, Default: "1e-3", Doc: "relative width of the final bracket"},
+			{Name: "min_spikes", Kind: runtime.KindNumber, Dimensionless: true, Default: "1", Doc: "spikes during the step that count as firing"}},
 			timeParam("duration", "1000 ms", "length of the step"), stepParams[1], stepParams[2]),
 		Fn: rheobaseFn,
 	}
@@ -522,7 +523,11 @@ func rheobaseFn(c *runtime.Call) (runtime.Value, error) {
 	if !(tol > 0 && tol < 1) {
 		return nil, runtime.ValueErrorf("rheobase: tolerance must lie between 0 and 1, got %s; use e.g. 1e-3", units.FormatNumber(tol))
 	}
-	res, err := neuron.Rheobase(c.Ctx, factory, &neuron.RheobaseSettings{Sweep: neuron.SweepSettings{Sim: sim, Length: c.Float("duration")}, RelTol: tol})
+	minSpikes, err := c.Int("min_spikes", 1, 1_000_000)
+	if err != nil {
+		return nil, err
+	}
+	res, err := neuron.Rheobase(c.Ctx, factory, &neuron.RheobaseSettings{Sweep: neuron.SweepSettings{Sim: sim, Length: c.Float("duration")}, RelTol: tol, MinSpikes: minSpikes})
 	if err != nil {
 		if c.Ctx.Err() != nil || errors.Is(err, context.Canceled) {
 			return nil, err
