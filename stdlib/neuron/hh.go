@@ -81,12 +81,26 @@ func vtrap(x float64) float64 {
 	return x / -math.Expm1(-x)
 }
 
-// hhRates returns α and β for m, h, n at v (mV), in 1/ms at 6.3 °C. The exponentials
-// come from two calls to math.Exp: with u = e^{−(V+65)/720}, e^{−(V+65)/80} = u⁹,
-// e^{−(V+65)/20} = u³⁶ and e^{−(V+65)/18} = u⁴⁰ (relative error below 1e-13), and
-// e^{−(V+35)/10}, e^{−(V+55)/10} are e^{−(V+40)/10} times a constant.
+// hhRates returns α and β for m, h, n at v (mV), in 1/ms at 6.3 °C, with math.Exp.
+// It serves Deriv (and so the adaptive method, whose step control would turn a
+// last-place change into a different step sequence), the resting state and the
+// spike-time search.
 func hhRates(v float64) (am, bm, ah, bh, an, bn float64) {
-	u := math.Exp(-(v + 65) * (1.0 / 720))
+	return ratesFrom(v, math.Exp(-(v+65)*(1.0/720)), math.Exp(-((v + 40) * 0.1)))
+}
+
+// hhRatesFast is hhRates with expFast: the same rates to within about one unit in
+// the last place, for the fixed-step HH runs, where the exponentials are most of
+// the cost of a step.
+func hhRatesFast(v float64) (am, bm, ah, bh, an, bn float64) {
+	return ratesFrom(v, expFast(-(v+65)*(1.0/720)), expFast(-((v + 40) * 0.1)))
+}
+
+// ratesFrom returns the rates at v (mV) given u = e^{−(V+65)/720} and
+// em = e^{−(V+40)/10}. The other exponentials are powers or multiples of these:
+// e^{−(V+65)/80} = u⁹, e^{−(V+65)/20} = u³⁶ and e^{−(V+65)/18} = u⁴⁰ (relative error
+// below 1e-13), and e^{−(V+35)/10}, e^{−(V+55)/10} are em times a constant.
+func ratesFrom(v, u, em float64) (am, bm, ah, bh, an, bn float64) {
 	u2 := u * u
 	u4 := u2 * u2
 	u9 := u4 * u4 * u
@@ -96,7 +110,6 @@ func hhRates(v float64) (am, bm, ah, bh, an, bn float64) {
 	ah = 0.07 * u36
 	bn = 0.125 * u9
 	xm := (v + 40) * 0.1
-	em := math.Exp(-xm) // e^{−(V+40)/10}
 	am = trap(xm, em)
 	bh = 1 / (1 + em*expHalf)
 	an = 0.1 * trap(xm+1.5, em*expMinus1p5)
@@ -188,7 +201,7 @@ func (m *HH) ExpEulerStep(y []float64, dt, in float64) {
 	_ = y[3]
 	h := dt * 1e3 * m.phi() // ms scaled by Q10
 	v := y[0] * 1e3
-	am, bm, ah, bh, an, bn := hhRates(v)
+	am, bm, ah, bh, an, bn := hhRatesFast(v)
 	y[1] = gateStep(y[1], am, bm, h)
 	y[2] = gateStep(y[2], ah, bh, h)
 	y[3] = gateStep(y[3], an, bn, h)
@@ -198,14 +211,15 @@ func (m *HH) ExpEulerStep(y []float64, dt, in float64) {
 	gl := m.GL * 0.1
 	g := gna + gk + gl
 	vinf := (gna*m.ENa*1e3 + gk*m.EK*1e3 + gl*m.EL*1e3 + in*100) / g
-	y[0] = (vinf + (v-vinf)*math.Exp(-dt*1e3*g/(m.C*100))) * 1e-3
+	y[0] = (vinf + (v-vinf)*expFast(-dt*1e3*g/(m.C*100))) * 1e-3
 }
 
-// gateStep is the exact update of dx/dt = α(1−x) − βx over h with α, β frozen.
+// gateStep is the exact update of dx/dt = α(1−x) − βx over h with α, β frozen,
+// with expFast.
 func gateStep(x, a, b, h float64) float64 {
 	s := a + b
 	inf := a / s
-	return inf + (x-inf)*math.Exp(-h*s)
+	return inf + (x-inf)*expFast(-h*s)
 }
 
 // Detector is implemented by models without a reset whose spikes are the upward
