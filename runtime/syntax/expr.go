@@ -9,7 +9,8 @@ func (p *parser) parseExpr() Expr {
 	if p.tok.Tok == IF {
 		return p.parseCond()
 	}
-	return p.parseOr()
+	x, _ := p.parseBinary(precOr)
+	return x
 }
 
 func (p *parser) parseCond() Expr {
@@ -45,62 +46,110 @@ func (p *parser) skipNewlineBefore(tok Token) {
 	}
 }
 
-func (p *parser) parseOr() Expr {
-	x := p.parseAnd()
-	for p.tok.Tok == OR {
-		pos := p.tok.Pos
-		p.next()
-		x = &BinaryExpr{X: x, OpPos: pos, Op: OR, Y: p.parseAnd()}
-	}
-	return x
+// Binding strengths of the binary operators, weakest first, for the
+// precedence-climbing loop of parseBinary. NOT is a prefix between and
+// and the comparisons; IN is a postfix between the comparisons and the
+// sums. A strength of 0 means "not a binary operator".
+const (
+	precOr    = 1
+	precAnd   = 2
+	precNot   = 3 // operand of not and right operand of and
+	precCmp   = 4
+	precIn    = 5
+	precSum   = 6
+	precTerm  = 7
+	precUnary = 8 // operand of * and /: no binary operator at all
+	precAny   = 9 // no limit on the operator that may follow
+)
+
+var binaryPrec = [...]int8{
+	OR: precOr, AND: precAnd,
+	EQL: precCmp, NEQ: precCmp, LSS: precCmp, LEQ: precCmp, GTR: precCmp, GEQ: precCmp,
+	IN:  precIn,
+	ADD: precSum, SUB: precSum,
+	MUL: precTerm, QUO: precTerm,
 }
 
-func (p *parser) parseAnd() Expr {
-	x := p.parseNot()
-	for p.tok.Tok == AND {
-		pos := p.tok.Pos
-		p.next()
-		x = &BinaryExpr{X: x, OpPos: pos, Op: AND, Y: p.parseNot()}
+func opPrec(tok Token) int {
+	if tok >= 0 && int(tok) < len(binaryPrec) {
+		return int(binaryPrec[tok])
 	}
-	return x
+	return 0
 }
 
-func (p *parser) parseNot() Expr {
-	if p.tok.Tok != NOT {
-		return p.parseCmp()
+// parseBinary parses the operators that bind at least as tightly as prec,
+// in one loop instead of one function per level; the trees are those of
+// the grammar
+//
+//	or   = and {"or" and}
+//	and  = not {"and" not}
+//	not  = "not" not | cmp
+//	cmp  = conv [cmpop conv]        (comparisons do not chain)
+//	conv = sum ["in" UNIT]
+//	sum  = term {("+" | "-") term}
+//	term = unary {("*" | "/") unary}
+//
+// It also returns the strongest operator that may still follow: after
+// x in UNIT only a comparison or weaker, after a comparison only and or
+// or. The limit passes to the enclosing levels, so that x in mV + 1
+// stops at '+' there too, as the grammar above does.
+func (p *parser) parseBinary(prec int) (Expr, int) {
+	x, limit := p.parseOperand(prec)
+	for {
+		op := p.tok.Tok
+		oprec := opPrec(op)
+		if oprec == 0 || oprec < prec || oprec > limit {
+			return x, limit
+		}
+		pos := p.tok.Pos
+		switch oprec {
+		case precIn:
+			x = p.parseIn(x)
+			limit = precCmp
+			continue
+		case precCmp:
+			p.next()
+			y, _ := p.parseBinary(precIn)
+			x = &BinaryExpr{X: x, OpPos: pos, Op: op, Y: y}
+			p.noChain()
+			limit = precNot
+			continue
+		}
+		p.next()
+		y, l := p.parseBinary(oprec + 1)
+		x = &BinaryExpr{X: x, OpPos: pos, Op: op, Y: y}
+		limit = min(limit, l)
+	}
+}
+
+// parseOperand parses the first operand of parseBinary: a not-expression
+// where one may stand, else a unary expression.
+func (p *parser) parseOperand(prec int) (Expr, int) {
+	if prec > precNot || p.tok.Tok != NOT {
+		return p.parseUnary(), precAny
 	}
 	p.enter()
 	defer p.leave()
 	pos := p.tok.Pos
 	p.next()
-	return &UnaryExpr{OpPos: pos, Op: NOT, X: p.parseNot()}
+	x, limit := p.parseBinary(precNot)
+	return &UnaryExpr{OpPos: pos, Op: NOT, X: x}, limit
+}
+
+// noChain reports a second comparison after a first one and parses its
+// operand only to carry on after the error.
+func (p *parser) noChain() {
+	if isComparison(p.tok.Tok) {
+		p.errorAt(p.tok.Pos, "comparisons do not chain; use and, as in a < b and b < c")
+		p.next()
+		p.parseBinary(precIn)
+	}
 }
 
 func isComparison(tok Token) bool { return tok >= EQL && tok <= GEQ }
 
-// parseCmp parses conv [cmpop conv]; comparisons do not chain.
-func (p *parser) parseCmp() Expr {
-	x := p.parseConv()
-	if !isComparison(p.tok.Tok) {
-		return x
-	}
-	pos, op := p.tok.Pos, p.tok.Tok
-	p.next()
-	x = &BinaryExpr{X: x, OpPos: pos, Op: op, Y: p.parseConv()}
-	if isComparison(p.tok.Tok) {
-		p.errorAt(p.tok.Pos, "comparisons do not chain; use and, as in a < b and b < c")
-		p.next()
-		p.parseConv() // parsed only to carry on after the error
-	}
-	return x
-}
-
-// parseConv parses sum ["in" UNIT].
-func (p *parser) parseConv() Expr {
-	x := p.parseSum()
-	if p.tok.Tok != IN {
-		return x
-	}
+// parseIn parses "in" UNIT after x.
+func (p *parser) parseIn(x Expr) Expr {
 	e := &InExpr{X: x, In: p.tok.Pos}
 	p.next()
 	if p.tok.Tok != IDENT {
@@ -111,26 +160,6 @@ func (p *parser) parseConv() Expr {
 	}
 	e.UnitPos, e.Unit = p.parseUnit()
 	return e
-}
-
-func (p *parser) parseSum() Expr {
-	x := p.parseTerm()
-	for p.tok.Tok == ADD || p.tok.Tok == SUB {
-		pos, op := p.tok.Pos, p.tok.Tok
-		p.next()
-		x = &BinaryExpr{X: x, OpPos: pos, Op: op, Y: p.parseTerm()}
-	}
-	return x
-}
-
-func (p *parser) parseTerm() Expr {
-	x := p.parseUnary()
-	for p.tok.Tok == MUL || p.tok.Tok == QUO {
-		pos, op := p.tok.Pos, p.tok.Tok
-		p.next()
-		x = &BinaryExpr{X: x, OpPos: pos, Op: op, Y: p.parseUnary()}
-	}
-	return x
 }
 
 // parseUnary parses "-" unary | "+" unary | power; unary plus is dropped.
