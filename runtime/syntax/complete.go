@@ -60,8 +60,9 @@ func Completeness(src string) (st Status, indent string) {
 func tail(src string) (depth, end int) {
 	var s scanner
 	s.init(src, nil)
+	var it Item
 	for {
-		it := s.scan()
+		s.scan(&it)
 		switch it.Tok {
 		case EOF:
 			return depth, end

@@ -74,7 +74,7 @@ func (p *parser) init(file, src string) {
 	p.last = NEWLINE // drops leading blank lines
 	p.prevEnd = Pos{Line: 1, Col: 1}
 	p.sc.init(src, p.errorAt)
-	p.tok = p.read()
+	p.read(&p.tok)
 }
 
 // recover turns a panic into the end of the parse: a bailout is expected,
@@ -90,10 +90,10 @@ func (p *parser) recover(r any) {
 
 // read returns the next token that matters to the grammar: a line break
 // inside brackets, after a token that needs more, or after another line
-// break is dropped.
-func (p *parser) read() Item {
+// break is dropped. The token is read into it.
+func (p *parser) read(it *Item) {
 	for {
-		it := p.sc.scan()
+		p.sc.scan(it)
 		switch it.Tok {
 		case NEWLINE:
 			if p.depth > 0 || p.last == NEWLINE || continues(p.last) {
@@ -107,7 +107,7 @@ func (p *parser) read() Item {
 			}
 		}
 		p.last = it.Tok
-		return it
+		return
 	}
 }
 
@@ -124,7 +124,7 @@ func continues(tok Token) bool {
 // peek returns the k-th token after the current one (k is 1 to 3).
 func (p *parser) peek(k int) Item {
 	for p.nla < k {
-		p.la[p.nla] = p.read()
+		p.read(&p.la[p.nla])
 		p.nla++
 	}
 	return p.la[k-1]
@@ -134,7 +134,7 @@ func (p *parser) peek(k int) Item {
 func (p *parser) next() {
 	p.prevEnd = p.tok.End
 	if p.nla == 0 {
-		p.tok = p.read()
+		p.read(&p.tok)
 		return
 	}
 	p.tok = p.la[0]

@@ -25,8 +25,9 @@ func Scan(src string) []Item {
 	s.init(src, nil)
 	items := make([]Item, 0, len(src)/3+1)
 	for {
-		it := s.scan()
-		items = append(items, it)
+		items = append(items, Item{})
+		it := &items[len(items)-1]
+		s.scan(it)
 		if it.Tok == EOF {
 			return items
 		}
@@ -63,6 +64,21 @@ func (s *scanner) error(pos Pos, msg string) {
 	if s.onErr != nil {
 		s.onErr(pos, msg)
 	}
+}
+
+// step does what next does when the current character is neither a line
+// break nor the end and the following one is ASCII, and reports whether
+// it could. It is small enough to be inlined, so the loops over names,
+// numbers and blanks write "if !s.step() { s.next() }".
+func (s *scanner) step() bool {
+	if s.rdOff >= len(s.src) || s.src[s.rdOff] >= utf8.RuneSelf {
+		return false
+	}
+	s.off = s.rdOff
+	s.col++
+	s.ch, s.chw = rune(s.src[s.rdOff]), 1
+	s.rdOff++
+	return true
 }
 
 // next moves to the following character, keeping line and column.
@@ -106,8 +122,24 @@ func isLetter(ch rune) bool {
 
 func isDigit(ch rune) bool { return '0' <= ch && ch <= '9' }
 
+// asciiIdent marks the ASCII characters that may go on a name, so that
+// the loop over a name tests one table entry per character.
+var asciiIdent = func() (t [utf8.RuneSelf]bool) {
+	for c := range t {
+		t[c] = isLetter(rune(c)) || isDigit(rune(c))
+	}
+	return t
+}()
+
 func isIdentChar(ch rune) bool {
-	return isLetter(ch) || isDigit(ch) || ch >= utf8.RuneSelf && unicode.IsDigit(ch)
+	if uint32(ch) < utf8.RuneSelf {
+		return asciiIdent[ch]
+	}
+	return isOtherIdentChar(ch)
+}
+
+func isOtherIdentChar(ch rune) bool {
+	return ch >= utf8.RuneSelf && (unicode.IsLetter(ch) || unicode.IsDigit(ch))
 }
 
 // skipBlank skips spaces, tabs, carriage returns and comments, stopping at
@@ -116,10 +148,14 @@ func (s *scanner) skipBlank() {
 	for {
 		switch s.ch {
 		case ' ', '\t', '\r':
-			s.next()
+			if !s.step() {
+				s.next()
+			}
 		case '#':
 			for s.ch != '\n' && s.ch != eof {
-				s.next()
+				if !s.step() {
+					s.next()
+				}
 			}
 		default:
 			return
@@ -127,12 +163,15 @@ func (s *scanner) skipBlank() {
 	}
 }
 
-// scan returns the next token.
-func (s *scanner) scan() Item {
+// scan reads the next token into it (filled in place: an Item is too big
+// to return by value in the hot path).
+func (s *scanner) scan(it *Item) {
 	s.skipBlank()
 	pos := s.pos()
-	tok := s.scanToken(pos)
-	return Item{Tok: tok, Lit: s.src[pos.Offset:s.off], Pos: pos, End: s.pos()}
+	it.Tok = s.scanToken(pos)
+	it.Lit = s.src[pos.Offset:s.off]
+	it.Pos = pos
+	it.End = s.pos()
 }
 
 func (s *scanner) scanToken(pos Pos) Token {
@@ -228,17 +267,47 @@ func illegalMessage(ch rune) string {
 
 func (s *scanner) scanIdent() Token {
 	start := s.off
-	s.next() // the first character is a letter or '°'
-	for isIdentChar(s.ch) {
+	if !s.step() { // the first character is a letter or '°'
 		s.next()
+	}
+	for isIdentChar(s.ch) {
+		if !s.step() {
+			s.next()
+		}
 	}
 	// Keywords are 2 to 7 lower-case ASCII letters: test that before the
 	// map lookup, which most names (units above all) then skip.
 	if n := s.off - start; n < 2 || n > 7 || s.src[start] < 'a' || s.src[start] > 't' {
 		return IDENT
 	}
-	if tok, ok := Keywords[s.src[start:s.off]]; ok {
-		return tok
+	return keyword(s.src[start:s.off])
+}
+
+// keyword returns the token of a keyword, or IDENT; it agrees with the
+// Keywords map (a test checks that), and a switch on the string is
+// cheaper than the map lookup.
+func keyword(name string) Token {
+	switch name {
+	case "and":
+		return AND
+	case "or":
+		return OR
+	case "not":
+		return NOT
+	case "in":
+		return IN
+	case "if":
+		return IF
+	case "then":
+		return THEN
+	case "else":
+		return ELSE
+	case "true":
+		return TRUE
+	case "false":
+		return FALSE
+	case "formula":
+		return FORMULA
 	}
 	return IDENT
 }
@@ -247,12 +316,18 @@ func (s *scanner) scanIdent() Token {
 // left for the next token, so 1eV is the number 1 and the unit eV.
 func (s *scanner) scanNumber() {
 	for isDigit(s.ch) {
-		s.next()
+		if !s.step() {
+			s.next()
+		}
 	}
 	if s.ch == '.' {
-		s.next()
-		for isDigit(s.ch) {
+		if !s.step() {
 			s.next()
+		}
+		for isDigit(s.ch) {
+			if !s.step() {
+				s.next()
+			}
 		}
 	}
 	if s.ch != 'e' && s.ch != 'E' {
@@ -270,7 +345,9 @@ func (s *scanner) scanNumber() {
 	}
 	s.next()
 	for isDigit(s.ch) {
-		s.next()
+		if !s.step() {
+			s.next()
+		}
 	}
 }
 
