@@ -54,3 +54,17 @@ func TestInterruptedSweepShowsPartialCurve(t *testing.T) {
 		t.Error("the partial curve was not shown")
 	}
 }
+
+// TestLongSimulationShowsProgress: a simulation of millions of steps shows
+// a progress output and updates it in place (issue: long work is visible).
+func TestLongSimulationShowsProgress(t *testing.T) {
+	s := newTestSession()
+	updates := 0
+	out := &collect{onUpdate: func() { updates++ }}
+	if _, err := s.Execute(context.Background(), "cell", "simulate(lif(), step(0.3 nA), duration = 30 s, dt = 0.01 ms, every = 1000)", out); err != nil {
+		t.Fatal(err)
+	}
+	if len(out.bundles) == 0 || updates == 0 {
+		t.Errorf("progress shown %d times and updated %d times, want both", len(out.bundles), updates)
+	}
+}

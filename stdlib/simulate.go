@@ -74,12 +74,29 @@ func simulateFn(c *runtime.Call) (runtime.Value, error) {
 		return nil, err
 	}
 	r.model.rateErr = nil
-	tr, err := neuron.Simulate(c.Ctx, neuron.Problem{Model: nm, Input: r.input(), Duration: r.duration}, &r.set)
+	set := r.set
+	var prog *display.Progress
+	if r.duration/set.Dt >= longRun {
+		prog = progressFor(c, "simulating "+fmtQ(r.duration, units.Time)+" of model time (ms done)", r.duration*1e3)
+		set.Progress = func(t float64) { prog.Set(t * 1e3) }
+	}
+	tr, err := neuron.Simulate(c.Ctx, neuron.Problem{Model: nm, Input: r.input(), Duration: r.duration}, &set)
+	if prog != nil {
+		if err != nil && c.Ctx.Err() != nil {
+			prog.Interrupted()
+		} else {
+			prog.Done()
+		}
+	}
 	if err != nil {
 		return nil, simError(c, r.model, err)
 	}
 	return newTrace(r, nm, tr), nil
 }
+
+// longRun is the number of steps from which a single simulation shows its
+// progress: about a second of work for a conductance model.
+const longRun = 2_000_000
 
 // simError turns a numerics error into the language's: interrupts pass
 // through, an activation's own error comes first, the rest are ValueErrors.

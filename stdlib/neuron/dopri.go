@@ -53,7 +53,7 @@ func (sm *sim) runDopri(ctx context.Context) error {
 	dp.kNext = sm.st.Every
 	t := 0.0
 	for it := 1; t < sm.dur; it++ {
-		if err := cancelled(ctx, it); err != nil {
+		if err := sm.checkpoint(ctx, it, t); err != nil {
 			return err
 		}
 		var err error

@@ -12,7 +12,7 @@ func (sm *sim) runFixed(ctx context.Context) error {
 	}
 	sm.record(0, 0, sm.y)
 	for k := 1; k <= sm.n; k++ {
-		if err := cancelled(ctx, k); err != nil {
+		if err := sm.checkpoint(ctx, k, sm.gridTime(k-1)); err != nil {
 			return err
 		}
 		b := sm.gridTime(k)
@@ -166,7 +166,7 @@ func (sm *sim) runExact(ctx context.Context) error {
 	decay := math.Exp(-sm.dt / tau)
 	sm.record(0, 0, sm.y)
 	for k := 1; k <= sm.n; k++ {
-		if err := cancelled(ctx, k); err != nil {
+		if err := sm.checkpoint(ctx, k, sm.gridTime(k-1)); err != nil {
 			return err
 		}
 		a, b := sm.gridTime(k-1), sm.gridTime(k)

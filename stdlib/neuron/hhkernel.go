@@ -113,7 +113,7 @@ func (sm *sim) runHH(ctx context.Context) error {
 	defer func() { y.store(sm.y) }()
 	due := sm.st.Every // steps until the next recorded grid point
 	for k := 1; k <= sm.n; k++ {
-		if err := cancelled(ctx, k); err != nil {
+		if err := sm.checkpoint(ctx, k, sm.gridTime(k-1)); err != nil {
 			return err
 		}
 		a, b := sm.gridTime(k-1), sm.gridTime(k)

@@ -214,10 +214,15 @@ func (sm *sim) fire(t float64, y []float64) error {
 	return sm.spike(t)
 }
 
-// cancelled returns ctx.Err() at step 1 and every checkEvery steps after.
-func cancelled(ctx context.Context, step int) error {
+// checkpoint returns ctx.Err() at step 1 and every checkEvery steps after,
+// and at the same steps reports the simulated time t (s) to
+// Settings.Progress, if set.
+func (sm *sim) checkpoint(ctx context.Context, step int, t float64) error {
 	if step%checkEvery != 1 {
 		return nil
+	}
+	if sm.st.Progress != nil {
+		sm.st.Progress(t)
 	}
 	return ctx.Err()
 }

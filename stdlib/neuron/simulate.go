@@ -64,6 +64,10 @@ type Settings struct {
 	// MaxValues bounds the float64 values a trace may hold (samples × (recorded
 	// variables + time + input), plus spikes); default 200 M (1.6 GB).
 	MaxValues int
+	// Progress, if set, is called every few thousand steps with the
+	// simulated time reached (s), from the simulating goroutine; keep it
+	// cheap (a display throttles itself).
+	Progress func(t float64)
 }
 
 // DefaultMaxValues is the default memory limit in float64 values.
