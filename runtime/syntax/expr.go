@@ -110,14 +110,14 @@ func (p *parser) parseBinary(prec int) (Expr, int) {
 		case precCmp:
 			p.next()
 			y, _ := p.parseBinary(precIn)
-			x = &BinaryExpr{X: x, OpPos: pos, Op: op, Y: y}
+			x = p.newBinary(x, pos, op, y)
 			p.noChain()
 			limit = precNot
 			continue
 		}
 		p.next()
 		y, l := p.parseBinary(oprec + 1)
-		x = &BinaryExpr{X: x, OpPos: pos, Op: op, Y: y}
+		x = p.newBinary(x, pos, op, y)
 		limit = min(limit, l)
 	}
 }
@@ -189,7 +189,7 @@ func (p *parser) parsePower() Expr {
 	defer p.leave()
 	pos := p.tok.Pos
 	p.next()
-	return &BinaryExpr{X: x, OpPos: pos, Op: POW, Y: p.parseUnary()}
+	return p.newBinary(x, pos, POW, p.parseUnary())
 }
 
 // parsePostfix parses primary { call | field | index } [UNIT].
@@ -219,7 +219,9 @@ func (p *parser) parseUnitSuffix(x Expr) Expr {
 		return x
 	}
 	pos, unit := p.parseUnit()
-	x = &UnitExpr{X: x, UnitPos: pos, Unit: unit}
+	u := p.nodes.units.new()
+	*u = UnitExpr{X: x, UnitPos: pos, Unit: unit}
+	x = u
 	if p.tok.Tok == IDENT && p.tok.Pos.Line == p.prevEnd.Line {
 		p.errorAt(p.tok.Pos, fmt.Sprintf("unexpected name %s after a unit; write compound units without spaces, e.g. mV/ms", p.tok.Lit))
 		p.next()

@@ -67,6 +67,7 @@ type parser struct {
 	depth   int     // brackets open among the tokens read so far
 	last    Token   // last token let through the filter
 	nest    int     // current nesting, bounded by maxNest
+	nodes   nodeSlabs
 }
 
 func (p *parser) init(file, src string) {
@@ -327,12 +328,12 @@ func (p *parser) identList() []*Ident {
 // expected and returns an empty name at the current position.
 func (p *parser) parseIdent(what string) *Ident {
 	if p.tok.Tok == IDENT {
-		id := &Ident{NamePos: p.tok.Pos, Name: p.tok.Lit}
+		id := p.newIdent(p.tok.Pos, p.tok.Lit)
 		p.next()
 		return id
 	}
 	p.errorExpected(what, "")
-	return &Ident{NamePos: p.tok.Pos}
+	return p.newIdent(p.tok.Pos, "")
 }
 
 // badHere returns an empty placeholder where an expression is missing.

@@ -15,7 +15,7 @@ func (p *parser) parsePrimary() Expr {
 		return p.parseIdent("")
 	case NUMBER:
 		p.next()
-		return p.number(it)
+		return p.number(&it)
 	case STRING:
 		p.next()
 		return &StringLit{ValuePos: it.Pos, Raw: it.Lit, Value: unquote(it.Lit)}
@@ -43,14 +43,21 @@ func (p *parser) parsePrimary() Expr {
 }
 
 // number makes the literal of a scanned NUMBER.
-func (p *parser) number(it Item) *NumberLit {
+func (p *parser) number(it *Item) *NumberLit {
+	x := p.nodes.numbers.new()
+	*x = NumberLit{ValuePos: it.Pos, Raw: it.Lit}
+	if v, ok := fastFloat(it.Lit); ok {
+		x.Value = v
+		return x
+	}
 	v, err := strconv.ParseFloat(it.Lit, 64)
 	if errors.Is(err, strconv.ErrRange) {
 		p.errorAt(it.Pos, fmt.Sprintf("number %s is out of range; numbers must be below about 1.8e308, so use a larger unit", shorten(it.Lit)))
 	} else if err != nil {
 		p.errorAt(it.Pos, fmt.Sprintf("malformed number %s; write numbers like 20, 1.5 or 2e-3", shorten(it.Lit)))
 	}
-	return &NumberLit{ValuePos: it.Pos, Raw: it.Lit, Value: v}
+	x.Value = v
+	return x
 }
 
 // parseCall parses the arguments of a call of fun, at '('.
@@ -83,9 +90,13 @@ func (p *parser) parseArg() *Arg {
 	if p.tok.Tok == IDENT && p.peek(1).Tok == ASSIGN {
 		name := p.parseIdent("")
 		p.next()
-		return &Arg{Name: name, Value: p.parseExpr()}
+		a := p.nodes.args.new()
+		a.Name, a.Value = name, p.parseExpr()
+		return a
 	}
-	return &Arg{Value: p.parseExpr()}
+	a := p.nodes.args.new()
+	a.Value = p.parseExpr()
+	return a
 }
 
 // parseList parses "[" [exprs] "]".
