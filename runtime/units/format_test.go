@@ -305,7 +305,7 @@ func TestChoose(t *testing.T) {
 		for i := range si {
 			si[i] = math.Pow(10, -12+9*rng.Float64()) // 1 pA … 1 mA
 			if i%7 == 0 {
-				si[i] = si[0] // repeats exercise the partition
+				si[i] = si[0] // repeated values test the partition
 			}
 		}
 		sorted := slices.Clone(si)
