@@ -25,13 +25,42 @@ func (s *slab[T]) new() *T {
 	return x
 }
 
-// nodeSlabs holds the slabs of the node types met most often.
+// take returns a copy of src carved from the slab (nil if src is empty),
+// its capacity cut to its length so that an append to it cannot reach the
+// next slice of the chunk.
+func (s *slab[T]) take(src []T) []T {
+	if len(src) == 0 {
+		return nil
+	}
+	if len(src) > len(s.free) {
+		s.size = min(max(2*s.size, 16), 256)
+		s.free = make([]T, max(s.size, len(src)))
+	}
+	dst := s.free[:len(src):len(src)]
+	copy(dst, src)
+	s.free = s.free[len(src):]
+	return dst
+}
+
+// nodeSlabs holds the slabs of the node types met most often, and the
+// stacks on which the arguments of calls and the elements of lists are
+// gathered (nested calls push above their enclosing call's part) before
+// they are carved, at their final length, from argLists and exprLists.
 type nodeSlabs struct {
 	numbers  slab[NumberLit]
 	idents   slab[Ident]
 	units    slab[UnitExpr]
 	binaries slab[BinaryExpr]
+	unaries  slab[UnaryExpr]
+	parens   slab[ParenExpr]
+	calls    slab[CallExpr]
+	binds    slab[BindStmt]
 	args     slab[Arg]
+
+	argStack  []*Arg
+	exprStack []Expr
+	argLists  slab[*Arg]
+	exprLists slab[Expr]
 }
 
 func (p *parser) newIdent(pos Pos, name string) *Ident {

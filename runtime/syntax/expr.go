@@ -175,7 +175,9 @@ func (p *parser) parseUnary() Expr {
 	if op == ADD {
 		return x
 	}
-	return &UnaryExpr{OpPos: pos, Op: SUB, X: x}
+	u := p.nodes.unaries.new()
+	*u = UnaryExpr{OpPos: pos, Op: SUB, X: x}
+	return u
 }
 
 // parsePower parses postfix ["^" unary], so that -2^2 is -(2^2), 2^-1 is

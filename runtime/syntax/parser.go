@@ -274,7 +274,9 @@ func (p *parser) parseStmt() Stmt {
 		if p.peek(1).Tok == ASSIGN {
 			name := p.parseIdent("")
 			p.next()
-			return &BindStmt{Name: name, Value: p.parseExpr()}
+			s := p.nodes.binds.new()
+			s.Name, s.Value = name, p.parseExpr()
+			return s
 		}
 	}
 	x := p.parseExpr()

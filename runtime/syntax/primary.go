@@ -62,9 +62,11 @@ func (p *parser) number(it *Item) *NumberLit {
 
 // parseCall parses the arguments of a call of fun, at '('.
 func (p *parser) parseCall(fun Expr) Expr {
-	c := &CallExpr{Fun: fun, Lparen: p.tok.Pos}
+	c := p.nodes.calls.new()
+	c.Fun, c.Lparen = fun, p.tok.Pos
 	p.next()
 	named := false
+	base := len(p.nodes.argStack)
 	for p.tok.Tok != RPAREN && p.tok.Tok != EOF {
 		a := p.parseArg()
 		if a.Name != nil {
@@ -72,12 +74,15 @@ func (p *parser) parseCall(fun Expr) Expr {
 		} else if named {
 			p.errorAt(a.Value.Pos(), "positional argument after named argument; put positional arguments first")
 		}
-		c.Args = append(c.Args, a)
+		p.nodes.argStack = append(p.nodes.argStack, a)
 		if p.tok.Tok != COMMA {
 			break
 		}
 		p.next()
 	}
+	c.Args = p.nodes.argLists.take(p.nodes.argStack[base:])
+	clear(p.nodes.argStack[base:]) // drop the pointers for the collector
+	p.nodes.argStack = p.nodes.argStack[:base]
 	if p.tok.Tok != RPAREN && p.tok.Tok != EOF {
 		p.errorExpected("',' or ')'", "separate arguments with ','")
 	}
@@ -103,13 +108,18 @@ func (p *parser) parseArg() *Arg {
 func (p *parser) parseList() Expr {
 	l := &ListLit{Lbrack: p.tok.Pos}
 	p.next()
+	base := len(p.nodes.exprStack)
 	for p.tok.Tok != RBRACK && p.tok.Tok != EOF {
-		l.Elems = append(l.Elems, p.parseExpr())
+		x := p.parseExpr()
+		p.nodes.exprStack = append(p.nodes.exprStack, x)
 		if p.tok.Tok != COMMA {
 			break
 		}
 		p.next()
 	}
+	l.Elems = p.nodes.exprLists.take(p.nodes.exprStack[base:])
+	clear(p.nodes.exprStack[base:])
+	p.nodes.exprStack = p.nodes.exprStack[:base]
 	if p.tok.Tok != RBRACK && p.tok.Tok != EOF {
 		p.errorExpected("',' or ']'", "separate list elements with ','")
 	}
@@ -128,7 +138,10 @@ func (p *parser) parseParen() Expr {
 	if p.tok.Tok == COMMA {
 		p.errorExpected("')'", "a record needs names, as in (a = 1, b = 2), and a list uses brackets, as in [1, 2]")
 	}
-	return &ParenExpr{Lparen: lp, X: x, Rparen: p.expectClose(RPAREN)}
+	e := p.nodes.parens.new()
+	e.Lparen, e.X = lp, x
+	e.Rparen = p.expectClose(RPAREN)
+	return e
 }
 
 // parseRecord parses the fields of a record after its '(' at lp.
