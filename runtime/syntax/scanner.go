@@ -183,6 +183,14 @@ func (s *scanner) scanToken(pos Pos) Token {
 		s.scanNumber()
 		return NUMBER
 	}
+	if uint32(ch) < utf8.RuneSelf {
+		if tok := oneCharToken[ch]; tok != ILLEGAL {
+			if !s.step() {
+				s.next()
+			}
+			return tok
+		}
+	}
 	invalid := ch == utf8.RuneError && s.chw == 1
 	s.next()
 	switch ch {
@@ -232,6 +240,15 @@ func (s *scanner) scanToken(pos Pos) Token {
 		s.error(pos, illegalMessage(ch))
 	}
 	return ILLEGAL
+}
+
+// oneCharToken holds the tokens that are one character whatever follows
+// ('.' only once a number has been ruled out), found by one table lookup;
+// the switch in scanToken keeps them too, for the rare slow path.
+var oneCharToken = [utf8.RuneSelf]Token{
+	'+': ADD, '-': SUB, '*': MUL, '/': QUO, '^': POW,
+	'(': LPAREN, ')': RPAREN, '[': LBRACK, ']': RBRACK,
+	',': COMMA, ';': SEMICOLON, '.': PERIOD,
 }
 
 // pick consumes the character want if it comes next and returns yes, or
