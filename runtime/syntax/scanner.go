@@ -300,35 +300,6 @@ func (s *scanner) scanIdent() Token {
 	return keyword(s.src[start:s.off])
 }
 
-// keyword returns the token of a keyword, or IDENT; it agrees with the
-// Keywords map (a test checks that), and a switch on the string is
-// cheaper than the map lookup.
-func keyword(name string) Token {
-	switch name {
-	case "and":
-		return AND
-	case "or":
-		return OR
-	case "not":
-		return NOT
-	case "in":
-		return IN
-	case "if":
-		return IF
-	case "then":
-		return THEN
-	case "else":
-		return ELSE
-	case "true":
-		return TRUE
-	case "false":
-		return FALSE
-	case "formula":
-		return FORMULA
-	}
-	return IDENT
-}
-
 // scanNumber reads 20, 1.5, .5, 5., 1e-3. An 'e' not followed by digits is
 // left for the next token, so 1eV is the number 1 and the unit eV.
 func (s *scanner) scanNumber() {

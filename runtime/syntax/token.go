@@ -72,3 +72,32 @@ var Keywords = map[string]Token{
 	"and": AND, "or": OR, "not": NOT, "in": IN, "if": IF, "then": THEN,
 	"else": ELSE, "true": TRUE, "false": FALSE, "formula": FORMULA,
 }
+
+// keyword returns the token of a keyword, or IDENT; it agrees with the
+// Keywords map (a test checks that), and a switch on the string is
+// cheaper than the map lookup.
+func keyword(name string) Token {
+	switch name {
+	case "and":
+		return AND
+	case "or":
+		return OR
+	case "not":
+		return NOT
+	case "in":
+		return IN
+	case "if":
+		return IF
+	case "then":
+		return THEN
+	case "else":
+		return ELSE
+	case "true":
+		return TRUE
+	case "false":
+		return FALSE
+	case "formula":
+		return FORMULA
+	}
+	return IDENT
+}
