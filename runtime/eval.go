@@ -234,20 +234,29 @@ func (in *interp) record(e *syntax.RecordLit) (Value, error) {
 	return r, nil
 }
 
-func (in *interp) unit(pos syntax.Node, text string) (units.Unit, error) {
+// unit resolves a unit's text written at pos. The position is boxed into
+// a node only on error: this runs for every number with a unit.
+func (in *interp) unit(pos syntax.Pos, text string) (units.Unit, error) {
 	u, err := in.s.parseUnit(text)
 	if err != nil {
-		return u, in.errAt(pos, KindUnit, err)
+		return u, in.errAt(unitNode{pos, text}, KindUnit, err)
 	}
 	return u, nil
 }
 
 func (in *interp) withUnit(e *syntax.UnitExpr) (Value, error) {
+	if n, ok := e.X.(*syntax.NumberLit); ok { // 20 ms: the commonest case, without boxing 20 first
+		u, err := in.unit(e.UnitPos, e.Unit)
+		if err != nil {
+			return nil, err
+		}
+		return in.finite(e, Q(n.Value*u.Scale+u.Offset, u.Dim))
+	}
 	x, err := in.expr(e.X)
 	if err != nil {
 		return nil, err
 	}
-	u, err := in.unit(unitNode{e.UnitPos, e.Unit}, e.Unit)
+	u, err := in.unit(e.UnitPos, e.Unit)
 	if err != nil {
 		return nil, err
 	}
@@ -280,8 +289,7 @@ func (in *interp) inUnit(e *syntax.InExpr) (Value, error) {
 	if err != nil {
 		return nil, err
 	}
-	un := unitNode{e.UnitPos, e.Unit}
-	u, err := in.unit(un, e.Unit)
+	u, err := in.unit(e.UnitPos, e.Unit)
 	if err != nil {
 		return nil, err
 	}
@@ -301,7 +309,7 @@ func (in *interp) inUnit(e *syntax.InExpr) (Value, error) {
 	default:
 		return nil, in.errAt(e, KindUnit, fmt.Errorf("only numbers and vectors can be shown in a unit, not %s", article(x.Type())))
 	}
-	return nil, in.errAt(un, KindUnit, fmt.Errorf("cannot show %s in %s, which is %s", d.Describe(), e.Unit, u.Dim.Describe()))
+	return nil, in.errAt(unitNode{e.UnitPos, e.Unit}, KindUnit, fmt.Errorf("cannot show %s in %s, which is %s", d.Describe(), e.Unit, u.Dim.Describe()))
 }
 
 func (in *interp) unary(e *syntax.UnaryExpr) (Value, error) {
