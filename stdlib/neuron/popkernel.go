@@ -132,7 +132,7 @@ func (c *chunk) requeue(k int) {
 // exact crossings; it reports whether j ends refractory (relEnd set, not queued).
 func (c *chunk) advanceOne(j int, a, b float64) bool {
 	for {
-		w1 := c.w[j] * math.Exp(-(b-a)/c.tau[j])
+		w1 := c.w[j] * expFast(-(b-a)/c.tau[j])
 		if w1 < c.wth[j] {
 			c.w[j] = w1
 			return false
@@ -156,7 +156,7 @@ func crossTime(a, b, w0, wth, tau float64) float64 {
 	if !(w0 < wth) {
 		return a
 	}
-	if ts := a + tau*math.Log(w0/wth); !(ts > b) {
+	if ts := a + tau*logFast(w0/wth); !(ts > b) {
 		return ts
 	}
 	return b
