@@ -63,57 +63,68 @@ func (q *releaseWheel) clear() {
 	}
 }
 
-// spikeEvent is one spike of a chunk: the neuron's index in the chunk and the time.
-type spikeEvent struct {
-	j int32
-	t float64
+// spikeBlock holds logBlock spikes of a chunk: each neuron's index in the chunk and
+// the time (s), in two arrays so an event takes 12 bytes rather than a padded 16.
+type spikeBlock struct {
+	j [logBlock]int32
+	t [logBlock]float64
 }
 
 // spikeLog is a chunk's spikes in the order they were found, in fixed-size blocks
 // so that growing it never copies what is already logged.
 type spikeLog struct {
-	full [][]spikeEvent // filled blocks
-	cur  []spikeEvent   // block being filled
-	n    int            // events in full
+	blocks []*spikeBlock // the last one is being filled
+	used   int           // events in the last block
 }
 
-// logBlock is the number of events per block (64 KiB).
+// logBlock is the number of events per block (48 KiB).
 const logBlock = 4096
 
 // add logs a spike of neuron j at time t (s).
 func (l *spikeLog) add(j int, t float64) {
-	if len(l.cur) == cap(l.cur) {
-		if l.cur != nil {
-			l.full, l.n = append(l.full, l.cur), l.n+len(l.cur)
-		}
-		l.cur = make([]spikeEvent, 0, logBlock)
+	if l.used == logBlock || len(l.blocks) == 0 {
+		l.blocks, l.used = append(l.blocks, new(spikeBlock)), 0
 	}
-	l.cur = append(l.cur, spikeEvent{int32(j), t})
+	b := l.blocks[len(l.blocks)-1]
+	b.j[l.used], b.t[l.used] = int32(j), t
+	l.used++
+}
+
+// each calls f with the neuron indices and times of each block in order.
+func (l *spikeLog) each(f func(js []int32, ts []float64)) {
+	for i, b := range l.blocks {
+		n := logBlock
+		if i == len(l.blocks)-1 {
+			n = l.used
+		}
+		f(b.j[:n], b.t[:n])
+	}
 }
 
 // trains splits the log, in time order per neuron, into one slice per neuron of m,
 // all cut from one backing array with their capacity capped so an append by the
 // caller cannot run into a neighbour's spikes. Neurons without spikes get nil, as
-// per-neuron appends would leave them.
+// per-neuron appends would leave them. It counts first, then allocates once and
+// scatters.
 func (l *spikeLog) trains(m int) [][]float64 {
 	first := make([]int32, m+1) // first[j] becomes neuron j's first index
-	blocks := append(l.full, l.cur)
-	for _, b := range blocks {
-		for _, e := range b {
-			first[e.j+1]++
+	l.each(func(js []int32, _ []float64) {
+		for _, j := range js {
+			first[j+1]++
 		}
-	}
+	})
 	for j := 1; j <= m; j++ {
 		first[j] += first[j-1]
 	}
-	all := make([]float64, l.n+len(l.cur))
+	all := make([]float64, first[m])
 	next := append([]int32(nil), first[:m]...)
-	for _, b := range blocks {
-		for _, e := range b {
-			all[next[e.j]] = e.t
-			next[e.j]++
+	l.each(func(js []int32, ts []float64) {
+		ts = ts[:len(js)]
+		for i, j := range js {
+			all[next[j]] = ts[i]
+			next[j]++
 		}
-	}
+	})
 	out := make([][]float64, m)
 	for j := range out {
 		if lo, hi := first[j], first[j+1]; hi > lo {
