@@ -47,25 +47,53 @@ func runCommand(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return 2
 	}
-	path := files[0]
+	path, err := inItsFolder(files[0], out, report)
+	if err != nil {
+		fmt.Fprintf(stderr, "loligo: %v\n", err)
+		return 1
+	}
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
 	defer stop()
 	if strings.HasSuffix(path, ".ipynb") || *out != "" || *report != "" {
 		return runNotebook(ctx, path, *out, *report, *keepGoing, stdout, stderr)
 	}
-	return runScript(ctx, path, stdout, stderr)
+	return runScript(ctx, path, files[0], stdout, stderr)
+}
+
+// inItsFolder makes the run's working folder the folder of the script or
+// notebook, so that the paths it reads and writes mean what they mean when a
+// front end runs it (a kernel starts in its notebook's folder). The output
+// paths given on the command line are made absolute first, so they keep
+// meaning what the user typed. It returns the file's path from there.
+func inItsFolder(file string, outputs ...*string) (string, error) {
+	abs, err := filepath.Abs(file)
+	if err != nil {
+		return "", err
+	}
+	for _, o := range outputs {
+		if *o != "" {
+			if *o, err = filepath.Abs(*o); err != nil {
+				return "", err
+			}
+		}
+	}
+	if err := os.Chdir(filepath.Dir(abs)); err != nil {
+		return "", fmt.Errorf("cannot enter the folder of %s: %v", file, err)
+	}
+	return abs, nil
 }
 
 // runScript evaluates a script in a fresh session, printing each shown
 // value as text.
-func runScript(ctx context.Context, path string, stdout, stderr io.Writer) int {
+// name is the file as the user wrote it, for error positions.
+func runScript(ctx context.Context, path, name string, stdout, stderr io.Writer) int {
 	src, err := os.ReadFile(path)
 	if err != nil {
 		fmt.Fprintf(stderr, "loligo: %v\n", err)
 		return 1
 	}
 	out := &textOutput{stdout: stdout, stderr: stderr}
-	if err := newSession().Run(ctx, path, string(src), out); err != nil {
+	if err := newSession().Run(ctx, name, string(src), out); err != nil {
 		printError(stderr, err)
 		return 1
 	}
@@ -90,7 +118,7 @@ func runNotebook(ctx context.Context, path, out, report string, keepGoing bool, 
 	printNotebook(stdout, nb)
 	code := 0
 	if res.Err != nil {
-		fmt.Fprintf(stderr, "loligo: cell %d failed\n", res.Failed+1)
+		fmt.Fprintf(stderr, "loligo: cell %d of %s failed (its error names it by execution order):\n", res.Failed+1, filepath.Base(path))
 		printError(stderr, res.Err)
 		code = 1
 	}

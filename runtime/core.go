@@ -274,7 +274,7 @@ func lenBuiltin() *Builtin {
 func seedBuiltin() *Builtin {
 	return &Builtin{
 		Name: "seed", Category: "session", Returns: "nothing",
-		Doc:    "Resets the session's random source to a whole-number seed, so that every later random draw (noise, drawn populations, multi-start fits) repeats exactly. A new session starts as if seed(1) had run.",
+		Doc:    "Resets the session's random source to a whole-number seed, so that every later random draw (noise, drawn populations, seeded parameters) repeats exactly. A new session starts as if seed(1) had run.",
 		Params: []Param{{Name: "n", Kind: KindNumber, Dimensionless: true}},
 		Fn: func(c *Call) (Value, error) {
 			n, err := c.Int("n", 0, 1<<53)
@@ -384,7 +384,10 @@ type Helper interface{ Help() string }
 
 func overview(r *Registry) string {
 	var b strings.Builder
-	cat := ""
+	cat, width := "", 0
+	for _, f := range r.Builtins() {
+		width = max(width, len(f.Name))
+	}
 	for _, f := range r.Builtins() {
 		if f.Category != cat {
 			cat = f.Category
@@ -394,7 +397,7 @@ func overview(r *Registry) string {
 		if i := strings.Index(doc, ". "); i > 0 {
 			doc = doc[:i+1]
 		}
-		fmt.Fprintf(&b, "  %-12s %s\n", f.Name, doc)
+		fmt.Fprintf(&b, "  %-*s  %s\n", width, f.Name, doc)
 	}
 	b.WriteString("\nhelp(name) shows one in full.\n")
 	return strings.TrimLeft(b.String(), "\n")

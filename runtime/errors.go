@@ -145,31 +145,43 @@ func suggest(name string, candidates []string) string {
 			best, bestD = c, d
 		}
 	}
-	limit := 1 + len([]rune(name))/3
+	// One edit in three characters is a likely typo; a name of three
+	// characters or fewer gets one edit (so fit does not suggest at).
+	n := len([]rune(name))
+	limit := 1 + n/3
+	if n <= 3 {
+		limit = 1
+	}
 	if bestD <= limit {
 		return best
 	}
 	return ""
 }
 
-// editDistance is the Levenshtein distance counted in code points.
+// editDistance is the optimal-string-alignment distance counted in code
+// points: insertions, deletions, substitutions and swaps of two adjacent
+// characters (tua → tau) each cost one.
 func editDistance(a, b string) int {
 	ra, rb := []rune(a), []rune(b)
-	prev := make([]int, len(rb)+1)
-	cur := make([]int, len(rb)+1)
-	for j := range prev {
-		prev[j] = j
+	d := make([][]int, len(ra)+1)
+	for i := range d {
+		d[i] = make([]int, len(rb)+1)
+		d[i][0] = i
+	}
+	for j := range d[0] {
+		d[0][j] = j
 	}
 	for i := 1; i <= len(ra); i++ {
-		cur[0] = i
 		for j := 1; j <= len(rb); j++ {
 			cost := 1
 			if ra[i-1] == rb[j-1] {
 				cost = 0
 			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+			d[i][j] = min(d[i-1][j]+1, d[i][j-1]+1, d[i-1][j-1]+cost)
+			if i > 1 && j > 1 && ra[i-1] == rb[j-2] && ra[i-2] == rb[j-1] {
+				d[i][j] = min(d[i][j], d[i-2][j-2]+1)
+			}
 		}
-		prev, cur = cur, prev
 	}
-	return prev[len(rb)]
+	return d[len(ra)][len(rb)]
 }

@@ -152,7 +152,7 @@ func (r *recorder) ClearOutput(wait bool) {
 
 // FromScript makes a notebook of a script: its text is split into cells at
 // lines that start with "#--" (the rest of such a line, if any, becomes a
-// Markdown cell before the code), so a long script reads as a report.
+// Markdown heading cell before the code), so a long script reads as a report.
 func FromScript(src string, nb *Notebook) {
 	var code []string
 	flush := func() {
@@ -166,7 +166,7 @@ func FromScript(src string, nb *Notebook) {
 		if rest, ok := strings.CutPrefix(line, "#--"); ok {
 			flush()
 			if md := strings.TrimSpace(rest); md != "" {
-				nb.AddCell("markdown", md)
+				nb.AddCell("markdown", "## "+md)
 			}
 			continue
 		}

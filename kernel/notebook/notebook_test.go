@@ -171,7 +171,7 @@ func TestFromScriptSplitsCells(t *testing.T) {
 	for _, c := range nb.Cells {
 		kinds = append(kinds, c.Type+":"+string(c.Source))
 	}
-	want := "code:a = 1|markdown:Second part|code:b = 2|code:c = 3"
+	want := "code:a = 1|markdown:## Second part|code:b = 2|code:c = 3"
 	if got := strings.Join(kinds, "|"); got != want {
 		t.Errorf("got %s, want %s", got, want)
 	}
