@@ -120,11 +120,26 @@ func periodic(n int, t0, p float64) []float64 {
 // Abbott 2001 ch. 1). ISIs 1, 2, 4 s give adaptation (1/3 + 1/3)/2 = 1/3 and
 // LV = 3/2·(1/9 + 1/9) = 1/3 (Shinomoto et al. 2003 formula by hand); ISIs
 // 1, 3 give CV = 1/2 (mean 2, population sd 1). Periodic times are rounded
-// sums, so 1e-12 absolute is allowed where an exact 0 or 1/period is expected.
+// products, so 1e-12 absolute is allowed where 1/period is expected; CV, LV
+// and adaptation of a periodic train must be exactly 0 (tolerance 0), also for
+// times accumulated step by step as an integrator does (acc), whose ISIs
+// differ by rounding. Alternating ISIs a, b (alt) have CV = |a−b|/(a+b) and
+// LV = 3((a−b)/(a+b))² (both definitions by hand): a real variation of 1 µs in
+// 10 ms must survive the rounding snap.
 func TestMeasures(t *testing.T) {
 	t.Parallel()
 	per := periodic(40, 0.01, 0.025)
 	geo := []float64{0, 1, 3, 7}
+	acc := make([]float64, 41)
+	acc[0] = 0.03074
+	for i := 1; i < len(acc); i++ {
+		acc[i] = acc[i-1] + 0.0239722
+	}
+	alt := make([]float64, 21)
+	for i := 1; i < len(alt); i++ {
+		alt[i] = alt[i-1] + 0.01 + 1e-6*float64(i%2)
+	}
+	r := 1e-6 / 0.020001
 	type f func() (float64, error)
 	cases := []struct {
 		name string
@@ -135,9 +150,15 @@ func TestMeasures(t *testing.T) {
 		{"periodic rate in [0,1)", func() (float64, error) { return Rate(per, 0, 1) }, 40, 0},
 		{"periodic steady rate", func() (float64, error) { return SteadyRate(per, 0.2, 0.8) }, 40, 1e-12},
 		{"periodic first-ISI rate", func() (float64, error) { return FirstISIRate(per, 0.5) }, 40, 1e-9},
-		{"periodic CV", func() (float64, error) { return CV(per) }, 0, 1e-12},
-		{"periodic LV", func() (float64, error) { return LV(per) }, 0, 1e-12},
-		{"periodic adaptation", func() (float64, error) { return AdaptationIndex(per) }, 0, 1e-12},
+		{"periodic CV", func() (float64, error) { return CV(per) }, 0, 0},
+		{"periodic LV", func() (float64, error) { return LV(per) }, 0, 0},
+		{"periodic adaptation", func() (float64, error) { return AdaptationIndex(per) }, 0, 0},
+		{"accumulated periodic CV", func() (float64, error) { return CV(acc) }, 0, 0},
+		{"accumulated periodic LV", func() (float64, error) { return LV(acc) }, 0, 0},
+		{"accumulated periodic adaptation", func() (float64, error) { return AdaptationIndex(acc) }, 0, 0},
+		// Relative 1e-9: the ISIs carry rounding of about 1e-16 s on a 1e-6 s difference.
+		{"alternating CV", func() (float64, error) { return CV(alt) }, r, 1e-9 * r},
+		{"alternating LV", func() (float64, error) { return LV(alt) }, 3 * r * r, 1e-9 * r * r},
 		{"latency", func() (float64, error) { return Latency(per, 0.1) }, 0.01 + 4*0.025 - 0.1, 1e-15},
 		{"latency on a spike is 0", func() (float64, error) { return Latency(geo, 3) }, 0, 0},
 		{"adaptation 1,2,4", func() (float64, error) { return AdaptationIndex(geo) }, 1.0 / 3, 1e-15},
