@@ -256,7 +256,7 @@ func (t *TerminalSink) Display(Bundle, string, bool) {}
 
 // Line implements Sink.
 func (t *TerminalSink) Line(text string, final bool) {
-	n := len([]rune(text))
+	n := textWidth(text)
 	pad := strings.Repeat(" ", max(t.width-n, 0)) // clear the rest of a longer previous line
 	t.width = n
 	end := ""

@@ -209,9 +209,9 @@ func (t *Table) Text() (string, error) {
 	cells := t.cells(rows, "NaN", "Inf")
 	widths := make([]int, len(t.Columns))
 	for j, c := range t.Columns {
-		widths[j] = runeLen(c.Header())
+		widths[j] = textWidth(c.Header())
 		for _, s := range cells[j] {
-			widths[j] = max(widths[j], runeLen(s))
+			widths[j] = max(widths[j], textWidth(s))
 		}
 	}
 	var b strings.Builder
@@ -223,7 +223,7 @@ func (t *Table) Text() (string, error) {
 			if j > 0 {
 				b.WriteString("  ")
 			}
-			b.WriteString(pad(get(j), widths[j], c.Kind == NumberColumn))
+			b.WriteString(padWidth(get(j), widths[j], c.Kind == NumberColumn))
 		}
 		trimmed := strings.TrimRight(b.String(), " ") // no trailing blanks
 		b.Reset()
@@ -242,17 +242,4 @@ func (t *Table) Text() (string, error) {
 		b.WriteString("\n" + t.Note)
 	}
 	return b.String(), nil
-}
-
-// runeLen counts runes, which is the width of our cells in a monospaced
-// console (no wide characters are produced by the formatter).
-func runeLen(s string) int { return len([]rune(s)) }
-
-// pad pads s with spaces to width w, on the left when right is set.
-func pad(s string, w int, right bool) string {
-	fill := strings.Repeat(" ", max(w-runeLen(s), 0))
-	if right {
-		return fill + s
-	}
-	return s + fill
 }
