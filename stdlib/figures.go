@@ -105,7 +105,9 @@ func plotFn(c *runtime.Call) (runtime.Value, error) {
 		return nil, runtime.ArgumentErrorf("plot: nothing to draw; give traces, vectors or functions, e.g. plot(r) or plot(logistic, over = span(-4, 4, n = 200)), or points with plot(x = …, y = …)")
 	}
 	f := mergeFigures(figs)
-	f.Title = o.title
+	if o.title != "" { // an empty title keeps the automatic one (a trace's model and stimulus)
+		f.Title = o.title
+	}
 	for i := range f.Panels {
 		f.Panels[i].LogX = f.Panels[i].LogX || o.logX
 		f.Panels[i].LogY = f.Panels[i].LogY || o.logY
@@ -228,14 +230,15 @@ func vectorFigure(y []float64, yd units.Dim, name string, o plotOptions, kind di
 
 // mergeFigures overlays the series of panels with the same axis labels and
 // stacks the others, in the order they come. Series joining a panel from
-// another figure take the next colour, and repeated names are numbered.
+// another figure take the next colour, and repeated names are numbered. The
+// merged figure keeps the figures' title when they all have the same one.
 func mergeFigures(figs []*display.Figure) *display.Figure {
 	if len(figs) == 1 {
 		f := *figs[0]
 		f.Panels = append([]display.Panel(nil), f.Panels...)
 		return &f
 	}
-	out := &display.Figure{SharedX: true}
+	out := &display.Figure{SharedX: true, Title: commonTitle(figs)}
 	xlabel := ""
 	for fi, f := range figs {
 		for _, p := range f.Panels {
@@ -265,6 +268,16 @@ func mergeFigures(figs []*display.Figure) *display.Figure {
 		}
 	}
 	return out
+}
+
+// commonTitle returns the title all figs share, or "" when they differ.
+func commonTitle(figs []*display.Figure) string {
+	for _, f := range figs[1:] {
+		if f.Title != figs[0].Title {
+			return ""
+		}
+	}
+	return figs[0].Title
 }
 
 // panelIndex finds the panel of ps that p overlays: the same quantities on

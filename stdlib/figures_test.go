@@ -9,6 +9,7 @@ import (
 	"os"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -200,6 +201,36 @@ func TestSaveFigure(t *testing.T) {
 	ents, _ := os.ReadDir(dir)
 	if len(ents) != 2 {
 		t.Errorf("the folder holds %d entries, want the 2 saved files (no temporary leftovers)", len(ents))
+	}
+}
+
+// TestSaveKeepsTitle checks that plot() without title = keeps a trace's
+// automatic title (model and stimulus), also in the saved file, and that an
+// explicit title replaces it. The title is our own wording (stdlib/simulate.go),
+// so the reference is the trace's figure itself, not an outside source.
+func TestSaveKeepsTitle(t *testing.T) {
+	dir := t.TempDir()
+	const tr = `tr = simulate(lif(), step(300 pA, start = 10 ms, stop = 90 ms), duration = 100 ms)
+`
+	const auto = "Leaky integrate-and-fire: step 300 pA from 10 ms to 90 ms"
+	cases := []struct{ name, call, want string }{
+		{"automatic", `plot(tr)`, auto},
+		{"two of the same", `plot(tr, tr)`, auto},
+		{"explicit", `plot(tr, title = "mine")`, "mine"},
+	}
+	for i, c := range cases {
+		path := filepath.Join(dir, strconv.Itoa(i)+".svg")
+		if _, err := eval(t, nil, &record{}, tr+`save(`+c.call+`, "`+path+`")`); err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		data, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		_, texts := svgSeries(t, string(data))
+		if !slices.Contains(texts, c.want) {
+			t.Errorf("%s: saved SVG texts %q lack the title %q", c.name, texts, c.want)
+		}
 	}
 }
 
