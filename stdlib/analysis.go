@@ -495,11 +495,13 @@ func fiCurve(m *Model, res *neuron.SweepResult, d units.Dim) *Curve {
 func rheobaseBuiltin() *runtime.Builtin {
 	return &runtime.Builtin{
 		Name: "rheobase", Category: "analysis", Returns: "a current (or current density)",
-		Doc: "The rheobase: the smallest amplitude of a long current step (duration) that makes the model fire at least min_spikes spikes during the step, found by bisection to the relative tolerance. " +
+		Doc: "The rheobase: the smallest amplitude of a long current step (duration) that makes the model fire at least min_spikes spikes during the step. " +
+			"For a LIF model and one spike it is the closed form ((V_th − E_L) − (V_0 − E_L) e^(−duration/tau_m)) / ((1 − e^(−duration/tau_m)) R), which for a long step is (V_th − E_L)/R; " +
+			"otherwise it is the middle of a bisection bracket of the relative width tolerance. " +
 			"With the default of one spike it is the threshold of a single spike; a larger min_spikes asks for repetitive firing, which for a type II model (Hodgkin–Huxley) starts abruptly at a higher amplitude.",
-		Source: "bisection on the step amplitude; rheobase as defined in Dayan & Abbott (2001), ch. 5",
+		Source: "rheobase as defined in Dayan & Abbott (2001), ch. 5, with the LIF's closed form from its exponential relaxation; bisection on the step amplitude otherwise",
 		Params: append([]runtime.Param{{Name: "model", Kind: runtime.KindAny, Doc: "a spiking model"},
-			{Name: "tolerance", Kind: runtime.KindNumber, Dimensionless: true, Default: "1e-3", Doc: "relative width of the final bracket"},
+			{Name: "tolerance", Kind: runtime.KindNumber, Dimensionless: true, Default: "1e-4", Doc: "relative width of the final bisection bracket"},
 			{Name: "min_spikes", Kind: runtime.KindNumber, Dimensionless: true, Default: "1", Doc: "spikes during the step that count as firing"}},
 			timeParam("duration", "1000 ms", "length of the step"), stepParams[1], stepParams[2]),
 		Fn: rheobaseFn,

@@ -88,19 +88,85 @@ func TestSweepCancel(t *testing.T) {
 	}
 }
 
-// TestRheobase checks the LIF rheobase against the closed form g_L (V_th − E_L)
-// (Dayan & Abbott 2001, ch. 5): with a 1 s step the firing threshold exceeds it by a
-// factor 1 + O(e^{−1 s/τ_m}), negligible here.
+// TestRheobase checks the LIF rheobase against the closed form of the first
+// threshold crossing of V(t) = V∞ + (V_on − V∞) e^{−t/τ} (Dayan & Abbott 2001,
+// ch. 5), I = ((V_th − E_L) − (V_on − E_L) e^{−T/τ}) / ((1 − e^{−T/τ}) R): for a
+// long step from rest that is g_L (V_th − E_L) exactly; for a short one, and from
+// another initial potential, it is checked against the simulator, which must fire
+// just above the amplitude and stay silent just below it.
 func TestRheobase(t *testing.T) {
-	m := NewLIF()
-	want := m.GL * (m.VTh - m.EL)
-	r, err := Rheobase(context.Background(), func() Model { return NewLIF() }, &RheobaseSettings{Sweep: SweepSettings{Sim: &Settings{Dt: 1e-4}}})
+	v0 := func(v float64) func() Model {
+		return func() Model { m := NewLIF(); m.V0 = v; return m }
+	}
+	cases := []struct {
+		name    string
+		factory func() Model
+		length  float64
+		want    float64 // NaN: check against the simulator only
+	}{
+		// (V_th − E_L) g_L = 20 mV · 10 nS = 200 pA; e^{−50} vanishes against 1.
+		{"1 s step from rest", func() Model { return NewLIF() }, 1, 200e-12},
+		// 200 pA / (1 − e^{−1}) = 316.3953 pA (τ = T = 20 ms).
+		{"20 ms step from rest", func() Model { return NewLIF() }, 20e-3, 200e-12 / (1 - math.Exp(-1))},
+		{"10 ms step from -60 mV", v0(-60e-3), 10e-3, math.NaN()},
+		// Normalised LIF: threshold input 1 for a long step.
+		{"normalised LIF", func() Model { return NewNormLIF() }, 1, 1},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			r, err := Rheobase(context.Background(), c.factory, &RheobaseSettings{Sweep: SweepSettings{Length: c.length}})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !r.Exact || r.Runs != 0 || r.Lo != r.Amplitude || r.Hi != r.Amplitude {
+				t.Errorf("LIF rheobase not from the closed form: %+v", r)
+			}
+			if !math.IsNaN(c.want) {
+				// Rounding only: a few operations on exact millivolt differences.
+				checkNear(t, "LIF rheobase", r.Amplitude, c.want, 0, 1e-14)
+			}
+			// The exact integrator against the closed form: 1e-6 relative moves the
+			// crossing by about 1e-6·τ, far beyond its rounding.
+			sw := SweepSettings{Length: c.length, Window: c.length}
+			for _, f := range []struct {
+				scale float64
+				fires bool
+			}{{1 + 1e-6, true}, {1 - 1e-6, false}} {
+				tr, err := stepRun(context.Background(), c.factory(), r.Amplitude*f.scale, sw)
+				if err != nil {
+					t.Fatal(err)
+				}
+				if got := len(tr.Spikes) > 0; got != f.fires {
+					t.Errorf("at %g × rheobase: fires %v, want %v", f.scale, got, f.fires)
+				}
+			}
+		})
+	}
+}
+
+// TestRheobaseBisection checks the simulated path (Hodgkin–Huxley): the answer
+// is the middle of a bracket narrower than RelTol whose top fires and whose bottom
+// does not.
+func TestRheobaseBisection(t *testing.T) {
+	s := &RheobaseSettings{Sweep: SweepSettings{Length: 0.2}, RelTol: 1e-3}
+	r, err := Rheobase(context.Background(), hhFactory, s)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !(r.Lo <= want && want <= r.Hi) || r.Hi-r.Lo > 1e-3*r.Hi {
-		t.Errorf("bracket [%g, %g] A does not hold %g A within 1e-3", r.Lo, r.Hi, want)
+	if r.Exact || r.Amplitude != 0.5*(r.Lo+r.Hi) || r.Hi-r.Lo > 1e-3*r.Hi {
+		t.Errorf("bisection result %+v: want the middle of a bracket within 1e-3", r)
 	}
-	// The bracket is within the relative tolerance, so the estimate is too.
-	checkNear(t, "LIF rheobase", r.Amplitude, want, 0, 1e-3)
+	sw, _ := sweepDefaults(hhFactory, &s.Sweep)
+	for _, a := range []struct {
+		amp   float64
+		fires bool
+	}{{r.Hi, true}, {r.Lo, false}} {
+		tr, err := stepRun(context.Background(), hhFactory(), a.amp, sw)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := len(tr.Spikes) > 0; got != a.fires {
+			t.Errorf("at %g A/m^2: fires %v, want %v", a.amp, got, a.fires)
+		}
+	}
 }
