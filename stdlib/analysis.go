@@ -472,11 +472,23 @@ func sweepFn(c *runtime.Call) (runtime.Value, error) {
 		return nil, runtime.ValueErrorf("sweep: %s", trimPkg(err.Error()))
 	}
 	if err != nil {
+		prog.Set(float64(res.Finished))
 		prog.Interrupted()
-		return nil, c.Interrupted(fiCurve(m, res, d), fmt.Sprintf("%d of %d amplitudes finished; the partial curve is shown above", res.Finished, len(amps)))
+		partial, note := sweepPartial(m, res, d)
+		return nil, c.Interrupted(partial, note)
 	}
 	prog.Done()
 	return fiCurve(m, res, d), nil
+}
+
+// sweepPartial is what an interrupted sweep shows: the curve of the
+// amplitudes finished, or nothing (and a note saying so) when none finished.
+func sweepPartial(m *Model, res *neuron.SweepResult, d units.Dim) (runtime.Value, string) {
+	n := len(res.Amplitudes)
+	if res.Finished == 0 {
+		return nil, fmt.Sprintf("no amplitude of %d finished, so there is no partial curve; run it again, or with fewer amplitudes or a shorter duration", n)
+	}
+	return fiCurve(m, res, d), fmt.Sprintf("%d of %d amplitudes finished; the partial curve is shown above", res.Finished, n)
 }
 
 // fiCurve keeps the finished entries of a sweep as a curve.

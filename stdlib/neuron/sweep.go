@@ -17,7 +17,7 @@ type SweepSettings struct {
 	Length   float64   // step length, s; default 1 s. The run lasts Onset + Length.
 	Window   float64   // steady-rate window at the end of the step, s; default Length/2
 	Workers  int       // goroutines; default GOMAXPROCS. Results do not depend on it.
-	Progress func(done, total int)
+	Progress func(done, total int) // called after each finished amplitude with the number finished
 }
 
 // SweepResult holds one entry per amplitude; entries not finished are NaN.
@@ -51,6 +51,9 @@ func Sweep(ctx context.Context, factory func() Model, amps []float64, s *SweepSe
 		wg.Go(func() {
 			for i := int(next.Add(1) - 1); i < len(amps); i = int(next.Add(1) - 1) {
 				errs[i] = sweepOne(ctx, factory(), amps[i], st, res, i)
+				if errs[i] != nil {
+					continue // not finished: progress counts finished amplitudes only
+				}
 				d := int(done.Add(1))
 				if st.Progress != nil {
 					mu.Lock()

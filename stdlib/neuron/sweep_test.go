@@ -170,3 +170,21 @@ func TestRheobaseBisection(t *testing.T) {
 		}
 	}
 }
+
+// TestSweepProgressCountsFinished: the progress of an interrupted sweep counts
+// the amplitudes finished, not those started and abandoned, so the last report
+// equals Finished (the review found an interrupted sweep reporting 18% with
+// none finished).
+func TestSweepProgressCountsFinished(t *testing.T) {
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	last := 0
+	s := &SweepSettings{Length: 0.2, Workers: 2, Progress: func(done, _ int) { last = done; cancel() }}
+	r, err := Sweep(ctx, hhFactory, []float64{0.05, 0.06, 0.07, 0.08, 0.09, 0.1}, s)
+	if err == nil {
+		t.Fatal("a sweep cancelled at its first report ended without error")
+	}
+	if r.Finished == 0 || last != r.Finished {
+		t.Errorf("last progress report %d, finished %d; want them equal and positive", last, r.Finished)
+	}
+}
