@@ -469,7 +469,7 @@ func sweepFn(c *runtime.Call) (runtime.Value, error) {
 	res, err := neuron.Sweep(c.Ctx, factory, amps, s)
 	if err != nil && (c.Ctx.Err() == nil || res == nil) {
 		prog.Done()
-		return nil, runtime.ValueErrorf("sweep: %s", trimPkg(err.Error()))
+		return nil, runtime.ValueErrorf("sweep: %s", neuronMsg(err, m))
 	}
 	if err != nil {
 		prog.Set(float64(res.Finished))
@@ -546,7 +546,7 @@ func rheobaseFn(c *runtime.Call) (runtime.Value, error) {
 		if c.Ctx.Err() != nil || errors.Is(err, context.Canceled) {
 			return nil, err
 		}
-		return nil, runtime.ValueErrorf("rheobase: %s", trimPkg(err.Error()))
+		return nil, runtime.ValueErrorf("rheobase: %s", neuronMsg(err, m))
 	}
 	return runtime.Q(res.Amplitude, m.spec.input), nil
 }

@@ -107,7 +107,29 @@ func simError(c *runtime.Call, m *Model, err error) error {
 	if m.rateErr != nil {
 		return m.rateErr
 	}
-	return runtime.ValueErrorf("simulate: %s", trimPkg(err.Error()))
+	return runtime.ValueErrorf("simulate: %s", neuronMsg(err, m))
+}
+
+// goNames turns the numerics package's Go names of methods and settings in
+// its advice into what a cell writes.
+var goNames = strings.NewReplacer(
+	"use RK4 or DormandPrince54", `use method = "rk4" or "dopri5"`,
+	"use RK4, ExponentialEuler, DormandPrince54 or Exact", `use method = "rk4", "exp_euler", "dopri5" or "exact"`,
+	"use DormandPrince54", `use method = "dopri5"`,
+	"the Exact method", `method "exact"`,
+	"; set RheobaseSettings.Hi to an amplitude that fires", "; the model may not fire under a long step at all",
+)
+
+// neuronMsg is a numerics error as the language tells it: without the
+// package prefix, with the language's method names, and for the
+// Hodgkin–Huxley membrane the exponential Euler step offered too (it stays
+// stable for the fast sodium gate at steps where rk4 blows up).
+func neuronMsg(err error, m *Model) string {
+	msg := goNames.Replace(trimPkg(err.Error()))
+	if m != nil && m.spec == hhSpec && strings.HasSuffix(msg, `use method = "dopri5"`) {
+		msg += ` or "exp_euler"`
+	}
+	return msg
 }
 
 func (r *runSpec) input() neuron.Input {
