@@ -63,12 +63,17 @@ const (
 	DefaultTail = 5
 )
 
+// MinCut is the fewest rows a bundle leaves out: a table that would hide
+// this many rows or fewer is shown whole, since a cut line standing for a
+// handful of rows saves little room and hides data the reader wanted.
+const MinCut = 10
+
 // DefaultSaveHint is what the cut line of a long table tells the reader.
 const DefaultSaveHint = `write(table, "file.csv") saves all`
 
 // Table is a titled table of named columns, all of the same length. Head
 // and Tail are the rows shown before and after the cut when the table is
-// longer than Head+Tail (0 means DefaultHead and DefaultTail); SaveHint is
+// longer than Head+Tail+MinCut (0 means DefaultHead and DefaultTail); SaveHint is
 // the advice on the cut line ("" means DefaultSaveHint); Note is an
 // optional line under the table (a source, a caveat). The renderers never
 // modify the table.
@@ -135,7 +140,8 @@ func (t *Table) NaNCount() int {
 }
 
 // shownRows returns the row indices shown in a bundle and the number of rows
-// cut between the head and the tail (0 if none are).
+// cut between the head and the tail (0 if none are). Rows are cut only when
+// more than MinCut would be.
 func (t *Table) shownRows() (head, tail []int, cut int) {
 	n := t.Rows()
 	h, tl := t.Head, t.Tail
@@ -145,7 +151,7 @@ func (t *Table) shownRows() (head, tail []int, cut int) {
 	if tl <= 0 {
 		tl = DefaultTail
 	}
-	if n <= h+tl {
+	if n <= h+tl+MinCut {
 		h, tl = n, 0
 	}
 	for i := range h {

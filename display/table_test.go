@@ -56,14 +56,41 @@ func TestTableGolden(t *testing.T) {
 	}
 }
 
+// TestTableCutLine checks which rows a long table shows: the first
+// DefaultHead and last DefaultTail rows with a cut line between, unless the
+// cut would hide MinCut rows or fewer, when every row is shown (a 30-row
+// PSTH used to print "… 5 more rows"). The counts are plain arithmetic on
+// 20 + 5 shown rows.
 func TestTableCutLine(t *testing.T) {
-	txt, _ := longTable(1000).Text()
-	// The brief's own figure: 1000 rows, 20 + 5 shown, 975 cut.
-	if !strings.Contains(txt, `… 975 more rows (write(table, "file.csv") saves all)`) {
-		t.Errorf("cut line missing:\n%s", txt)
+	t.Parallel()
+	cases := []struct {
+		rows, shown int
+		cut         string // the cut line, "" for none
+	}{
+		{1000, 25, `… 975 more rows (write(table, "file.csv") saves all)`},
+		{36, 25, `… 11 more rows (write(table, "file.csv") saves all)`},
+		{35, 35, ""}, // 10 would be hidden: show them
+		{30, 30, ""},
+		{25, 25, ""},
+		{3, 3, ""},
 	}
-	if n := strings.Count(txt, "\n"); n+1 != 1+2+25+1+1 {
-		t.Errorf("text has %d lines, want title, header, rule, 25 rows, cut and footer", n+1)
+	for _, c := range cases {
+		txt, err := longTable(c.rows).Text()
+		if err != nil {
+			t.Fatal(err)
+		}
+		lines := 1 + 2 + c.shown + 1 // title, header, rule, rows, footer
+		if c.cut != "" {
+			lines++
+			if !strings.Contains(txt, c.cut) {
+				t.Errorf("%d rows: cut line %q missing:\n%s", c.rows, c.cut, txt)
+			}
+		} else if strings.Contains(txt, "more row") {
+			t.Errorf("%d rows: a cut line although only %d rows would be hidden:\n%s", c.rows, c.rows-25, txt)
+		}
+		if n := strings.Count(txt, "\n") + 1; n != lines {
+			t.Errorf("%d rows: text has %d lines, want %d", c.rows, n, lines)
+		}
 	}
 }
 
