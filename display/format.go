@@ -26,35 +26,54 @@ type numberFormat struct {
 // same number of decimals (so that the decimal points line up). Whole
 // numbers below 1e15 are shown without decimals.
 func columnFormat(xs []float64, digits int) numberFormat {
-	if digits <= 0 {
-		digits = DefaultDigits
-	}
-	maxAbs, minAbs, whole := 0.0, math.Inf(1), true
+	s := newMagnitudes()
+	s.add(xs)
+	return s.format(digits)
+}
+
+// magnitudes gathers what columnFormat needs to know of one or more columns:
+// the largest and the smallest non-zero finite magnitude, and whether every
+// finite value is whole. Columns of one Group are gathered together.
+type magnitudes struct {
+	maxAbs, minAbs float64
+	whole          bool
+}
+
+func newMagnitudes() magnitudes { return magnitudes{minAbs: math.Inf(1), whole: true} }
+
+func (s *magnitudes) add(xs []float64) {
 	for _, x := range xs {
 		if math.IsNaN(x) || math.IsInf(x, 0) {
 			continue
 		}
 		a := math.Abs(x)
-		maxAbs = math.Max(maxAbs, a)
+		s.maxAbs = math.Max(s.maxAbs, a)
 		if a > 0 {
-			minAbs = math.Min(minAbs, a)
+			s.minAbs = math.Min(s.minAbs, a)
 		}
 		if x != math.Trunc(x) {
-			whole = false
+			s.whole = false
 		}
 	}
+}
+
+// format is the numberFormat for the gathered values (see columnFormat).
+func (s *magnitudes) format(digits int) numberFormat {
+	if digits <= 0 {
+		digits = DefaultDigits
+	}
 	switch {
-	case whole && maxAbs < 1e15:
+	case s.whole && s.maxAbs < 1e15:
 		return numberFormat{}
-	case maxAbs >= 1e6 || maxAbs < 1e-3:
+	case s.maxAbs >= 1e6 || s.maxAbs < 1e-3:
 		return numberFormat{sci: true, decimals: digits - 1}
 	}
 	// A column whose small values would all round to zero at the largest
 	// value's precision (say 0.0021 beside 250) gets scientific notation too.
-	if minAbs < maxAbs*1e-4 && minAbs < 1e-2 {
+	if s.minAbs < s.maxAbs*1e-4 && s.minAbs < 1e-2 {
 		return numberFormat{sci: true, decimals: digits - 1}
 	}
-	d := digits - 1 - int(math.Floor(math.Log10(maxAbs)))
+	d := digits - 1 - int(math.Floor(math.Log10(s.maxAbs)))
 	return numberFormat{decimals: min(max(d, 0), 9)}
 }
 

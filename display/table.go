@@ -20,7 +20,11 @@ const (
 // TextColumn reads Texts; the other slice is ignored. Unit is shown in the
 // header as "rate (Hz)"; Digits is the count of significant digits of the
 // column's largest magnitude (0 means DefaultDigits), and every row of the
-// column shares the resulting number of decimals.
+// column shares the resulting number of decimals. Number columns with the
+// same non-empty Group hold the same quantity (measured, model and residual
+// rates, say) and share one format, computed over all their values with the
+// largest Digits among them, so that their decimals line up and their
+// arithmetic reads right; text columns ignore Group.
 type Column struct {
 	Name    string
 	Unit    string
@@ -28,6 +32,7 @@ type Column struct {
 	Numbers []float64
 	Texts   []string
 	Digits  int
+	Group   string
 }
 
 // Numbers returns a number column; xs is used, not copied.
@@ -181,11 +186,46 @@ func (t *Table) footer() string {
 	return s
 }
 
+// formats returns the number format of each number column, computed over
+// all its rows, or over all rows of all columns of its Group.
+func (t *Table) formats() []numberFormat {
+	out := make([]numberFormat, len(t.Columns))
+	type group struct {
+		m      magnitudes
+		digits int
+	}
+	groups := map[string]*group{}
+	for _, c := range t.Columns {
+		if c.Kind != NumberColumn || c.Group == "" {
+			continue
+		}
+		g := groups[c.Group]
+		if g == nil {
+			g = &group{m: newMagnitudes()}
+			groups[c.Group] = g
+		}
+		g.m.add(c.Numbers)
+		g.digits = max(g.digits, c.Digits)
+	}
+	for j, c := range t.Columns {
+		switch {
+		case c.Kind != NumberColumn:
+		case c.Group != "":
+			out[j] = groups[c.Group].m.format(groups[c.Group].digits)
+		default:
+			out[j] = columnFormat(c.Numbers, c.Digits)
+		}
+	}
+	return out
+}
+
 // cells formats the given rows of every column: cells[col][k] is row rows[k].
 // Each number column is formatted with one precision computed over all of
-// its rows, so that the shown rows agree with the ones left out.
+// its rows (and those of its Group), so that the shown rows agree with the
+// ones left out.
 func (t *Table) cells(rows []int, nan, inf string) [][]string {
 	out := make([][]string, len(t.Columns))
+	fs := t.formats()
 	for j, c := range t.Columns {
 		col := make([]string, len(rows))
 		if c.Kind == TextColumn {
@@ -193,7 +233,7 @@ func (t *Table) cells(rows []int, nan, inf string) [][]string {
 				col[k] = c.Texts[i]
 			}
 		} else {
-			f := columnFormat(c.Numbers, c.Digits)
+			f := fs[j]
 			for k, i := range rows {
 				col[k] = f.format(c.Numbers[i], nan, inf)
 			}

@@ -121,6 +121,44 @@ func TestColumnFormat(t *testing.T) {
 	}
 }
 
+// TestColumnGroup checks that number columns of one Group share decimals,
+// so that measured − model = residual reads right to the last shown digit
+// (four significant digits at the group's largest magnitude, common
+// practice for tables of measurements), while other columns keep their own.
+// The invented values: 120.5 − 7.891 = 112.609.
+func TestColumnGroup(t *testing.T) {
+	t.Parallel()
+	cols := func(group string, digits int) []Column {
+		return []Column{
+			{Name: "measured", Kind: NumberColumn, Numbers: []float64{120.5, 3}, Group: group},
+			{Name: "model", Kind: NumberColumn, Numbers: []float64{7.891, 2.25}, Group: group, Digits: digits},
+			{Name: "residual", Kind: NumberColumn, Numbers: []float64{112.609, 0.75}, Group: group},
+			{Name: "weight", Kind: NumberColumn, Numbers: []float64{0.123456, 1}},
+		}
+	}
+	cases := []struct {
+		name string
+		cols []Column
+		want [][]string // want[col][row]
+	}{
+		{"no group: own decimals", cols("", 0), [][]string{{"120.5", "3.0"}, {"7.891", "2.250"}, {"112.6", "0.8"}, {"0.123", "1.000"}}},
+		{"one group: shared decimals", cols("rate", 0), [][]string{{"120.5", "3.0"}, {"7.9", "2.2"}, {"112.6", "0.8"}, {"0.123", "1.000"}}},
+		{"largest Digits of the group", cols("rate", 5), [][]string{{"120.50", "3.00"}, {"7.89", "2.25"}, {"112.61", "0.75"}, {"0.123", "1.000"}}},
+		{"a group of one", cols("x", 0)[3:], [][]string{{"0.123", "1.000"}}},
+	}
+	for _, c := range cases {
+		tab := &Table{Columns: c.cols}
+		got := tab.cells([]int{0, 1}, "NaN", "Inf")
+		for j := range c.want {
+			for k := range c.want[j] {
+				if got[j][k] != c.want[j][k] {
+					t.Errorf("%s: %s row %d = %q, want %q", c.name, c.cols[j].Name, k, got[j][k], c.want[j][k])
+				}
+			}
+		}
+	}
+}
+
 func TestFormatNumber(t *testing.T) {
 	cases := []struct {
 		x    float64
