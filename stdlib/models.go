@@ -23,7 +23,28 @@ type modelSpec struct {
 	input     units.Dim
 	example   string // an input of the right kind, "10 uA/cm^2"
 	build     func(m *Model, i int) (neuron.Model, error)
+	rules     []rule // checks in the language's names and units, before building
 }
+
+// rule is one check of a model's parameters, run for every neuron. With
+// below set it requires name < below; otherwise ok(value) must hold, and want
+// says what is required ("must be positive").
+type rule struct {
+	name, below string
+	ok          func(si float64) bool
+	want, hint  string
+}
+
+func positiveRule(name, hint string) rule {
+	return rule{name: name, ok: func(v float64) bool { return v > 0 }, want: "must be positive", hint: hint}
+}
+
+func nonNegRule(name, hint string) rule {
+	return rule{name: name, ok: func(v float64) bool { return v >= 0 }, want: "must be ≥ 0", hint: hint}
+}
+
+// celsius is the declared unit of temperatures.
+var celsius = units.MustParse("degC")
 
 // modelParam is one parameter of a model value: SI values, one per neuron
 // (a single value is shared by all).
@@ -80,11 +101,18 @@ func (m *Model) String() string {
 	return head + " (" + strings.Join(parts, ", ") + ")"
 }
 
+// paramValue is a parameter as a value; temperatures keep the declared
+// unit (°C), as on the card, instead of kelvin.
 func (m *Model) paramValue(p modelParam) runtime.Value {
-	if len(p.v) == 1 {
-		return runtime.Q(p.v[0], p.dim)
+	var u *units.Unit
+	if p.dim == units.Temperature {
+		uu := displayUnit(p.unit, p.dim, p.v)
+		u = &uu
 	}
-	return &runtime.Vector{V: p.v, Dim: p.dim}
+	if len(p.v) == 1 {
+		return runtime.Quantity{V: p.v[0], Dim: p.dim, Unit: u}
+	}
+	return &runtime.Vector{V: p.v, Dim: p.dim, Unit: u}
 }
 
 // Field implements runtime.Fielder: every parameter by its name, and n.
@@ -242,14 +270,69 @@ func (m *Model) add(name, symbol, unit, doc string, d units.Dim, v []float64) er
 	return nil
 }
 
-// finish checks that every neuron of m builds.
-func (m *Model) finish() (*Model, error) {
+// finish checks the spec's rules and then that every neuron of m builds;
+// c tells which parameters the caller gave (for the hint on a default).
+func (m *Model) finish(c *runtime.Call) (*Model, error) {
+	for _, r := range m.spec.rules {
+		if err := m.check(c, r); err != nil {
+			return nil, err
+		}
+	}
 	for i := 0; i < m.n; i++ {
 		if _, err := m.Neuron(i); err != nil {
 			return nil, err
 		}
 	}
 	return m, nil
+}
+
+// check applies one rule to every neuron, telling a failure in the
+// parameter's own name and unit.
+func (m *Model) check(c *runtime.Call, r rule) error {
+	for i := 0; i < m.n; i++ {
+		v := m.get(r.name, i)
+		if r.below != "" {
+			if w := m.get(r.below, i); !(v < w) {
+				return runtime.ValueErrorf("%s: %s = %s must lie below %s = %s%s; %s", m.Name(), r.name, m.show(r.name, v), r.below, m.show(r.below, w),
+					m.which(i), m.belowHint(c, r))
+			}
+		} else if !r.ok(v) {
+			return runtime.ValueErrorf("%s: %s %s, got %s%s; %s", m.Name(), r.name, r.want, m.show(r.name, v), m.which(i), r.hint)
+		}
+	}
+	return nil
+}
+
+// which names neuron i of a population.
+func (m *Model) which(i int) string {
+	if m.n == 1 {
+		return ""
+	}
+	return fmt.Sprintf(" for neuron %d (counting from 0)", i)
+}
+
+// belowHint says how to restore the order, pointing at a default the caller
+// may not know they relied on.
+func (m *Model) belowHint(c *runtime.Call, r rule) string {
+	for _, p := range c.Builtin.Params {
+		if p.Name == r.name && p.Default != "" && !c.Given(r.name) {
+			return fmt.Sprintf("%s defaults to %s, so give %s too, below %s", r.name, p.Default, r.name, r.below)
+		}
+	}
+	if r.hint != "" {
+		return r.hint
+	}
+	return fmt.Sprintf("lower %s or raise %s", r.name, r.below)
+}
+
+// show formats an SI value of a parameter in its declared unit.
+func (m *Model) show(name string, v float64) string {
+	for _, p := range m.params {
+		if p.name == name {
+			return units.FormatIn(v, displayUnit(p.unit, p.dim, p.v))
+		}
+	}
+	return units.FormatNumber(v)
 }
 
 func registerModels(reg *runtime.Registry) {
@@ -278,7 +361,7 @@ func modelFn(spec **modelSpec, symbols map[string]string) func(c *runtime.Call) 
 		if err != nil {
 			return nil, err
 		}
-		return m.finish()
+		return m.finish(c)
 	}
 }
 
@@ -322,6 +405,7 @@ var lifSpec = &modelSpec{
 		return &neuron.LIF{C: m.get("C", i), GL: m.get("g_L", i), EL: m.get("E_L", i), VTh: m.get("V_th", i),
 			VReset: m.get("V_reset", i), TRef: m.get("t_ref", i), V0: v0}, nil
 	},
+	rules: []rule{nonNegRule("t_ref", "use 0 ms for no refractory period"), {name: "V_reset", below: "V_th"}},
 }
 
 func init() {
@@ -334,8 +418,8 @@ func init() {
 		Params: []runtime.Param{
 			num("tau_m", "ms", "20 ms", "membrane time constant C/g_L"),
 			num("R", "MOhm", "100 MOhm", "input resistance 1/g_L"),
-			opt("C", "pF", "membrane capacitance (instead of tau_m)"),
-			opt("g_L", "nS", "leak conductance (instead of R)"),
+			opt("C", "pF", "membrane capacitance; give it in place of tau_m"),
+			opt("g_L", "nS", "leak conductance; give it in place of R"),
 			num("E_L", "mV", "-70 mV", "leak reversal (resting) potential"),
 			num("V_th", "mV", "-50 mV", "spike threshold"),
 			num("V_reset", "mV", "-70 mV", "reset potential"),
@@ -352,6 +436,9 @@ func lifFn(c *runtime.Call) (runtime.Value, error) {
 		if c.Given(pair[0]) && c.Given(pair[1]) {
 			return nil, runtime.ArgumentErrorf("lif: give %s or %s, not both (they fix the same property of the membrane)", pair[0], pair[1])
 		}
+	}
+	if err := lifMembrane(c); err != nil {
+		return nil, err
 	}
 	m := &Model{spec: lifSpec, n: 1}
 	g, _ := c.Floats("R")
@@ -374,7 +461,8 @@ func lifFn(c *runtime.Call) (runtime.Value, error) {
 		v []float64
 		d units.Dim
 	}{{2, cm, units.Capacitance}, {3, g, units.Conductance}, {0, tau, units.Time}, {1, r, units.Resistance}} {
-		if err := m.add(decl[p.i].Name, lifSymbols[decl[p.i].Name], decl[p.i].Unit, decl[p.i].Doc, p.d, p.v); err != nil {
+		name := decl[p.i].Name
+		if err := m.add(name, lifSymbols[name], decl[p.i].Unit, lifNote(c, name), p.d, p.v); err != nil {
 			return nil, err
 		}
 	}
@@ -386,7 +474,66 @@ func lifFn(c *runtime.Call) (runtime.Value, error) {
 			}
 		}
 	}
-	return m.finish()
+	return m.finish(c)
+}
+
+// lifPair maps each membrane parameter to the one it replaces, with an
+// example value for the hint.
+var lifPair = map[string][2]string{"tau_m": {"C", "20 ms"}, "C": {"tau_m", "200 pF"}, "R": {"g_L", "100 MOhm"}, "g_L": {"R", "10 nS"}}
+
+// lifMembrane checks that the membrane parameters the cell uses (C or
+// tau_m, g_L or R) are positive, before the others are derived from them,
+// so that the message names what was written and in its unit.
+func lifMembrane(c *runtime.Call) error {
+	for _, name := range []string{"tau_m", "R"} {
+		if c.Given(lifPair[name][0]) {
+			name = lifPair[name][0]
+		}
+		v, _ := c.Floats(name)
+		for i, x := range v {
+			if x > 0 {
+				continue
+			}
+			at := ""
+			if len(v) > 1 {
+				at = fmt.Sprintf(" for neuron %d (counting from 0)", i)
+			}
+			return runtime.ValueErrorf("lif: %s must be positive, got %s%s; use e.g. %s = %s", name,
+				units.FormatIn(x, units.MustParse(declUnit(c, name))), at, name, lifPair[name][1])
+		}
+	}
+	return nil
+}
+
+// declUnit is the declared unit of a builtin's parameter.
+func declUnit(c *runtime.Call, name string) string {
+	for _, p := range c.Builtin.Params {
+		if p.Name == name {
+			return p.Unit
+		}
+	}
+	return ""
+}
+
+// lifNote is the card note of a membrane parameter: what it is, and for the
+// two derived from the others, from what (so the card does not read as if
+// they had been given).
+func lifNote(c *runtime.Call, name string) string {
+	note := map[string]string{"tau_m": "membrane time constant", "C": "membrane capacitance", "R": "input resistance", "g_L": "leak conductance"}[name]
+	other := lifPair[name][0]
+	if c.Given(other) || (!c.Given(name) && (name == "C" || name == "g_L")) {
+		switch name {
+		case "tau_m":
+			return note + ", C/g_L"
+		case "C":
+			return note + ", tau_m/R"
+		case "R":
+			return note + ", 1/g_L"
+		case "g_L":
+			return note + ", 1/R"
+		}
+	}
+	return note
 }
 
 // has reports whether the model holds a parameter.
@@ -427,6 +574,7 @@ var lifNormSpec = &modelSpec{
 	build: func(m *Model, i int) (neuron.Model, error) {
 		return &neuron.NormLIF{Tau: m.get("tau_m", i), TRef: m.get("tau_ref", i)}, nil
 	},
+	rules: []rule{positiveRule("tau_m", "use e.g. tau_m = 20 ms"), nonNegRule("tau_ref", "use 0 ms for no refractory period")},
 }
 
 func init() {
@@ -451,6 +599,13 @@ var hhSpec = &modelSpec{
 		return &neuron.HH{C: m.get("C", i), GNa: m.get("g_Na", i), GK: m.get("g_K", i), GL: m.get("g_L", i),
 			ENa: m.get("E_Na", i), EK: m.get("E_K", i), EL: m.get("E_L", i),
 			Temp: m.get("temperature", i) - 273.15, VDetect: m.get("V_detect", i)}, nil
+	},
+	rules: []rule{
+		{name: "temperature", ok: func(k float64) bool { return k >= 273.15+neuron.HHMinTemp && k <= 273.15+neuron.HHMaxTemp },
+			want: fmt.Sprintf("must lie between %g °C and %g °C", neuron.HHMinTemp, neuron.HHMaxTemp), hint: neuron.HHTempWhy},
+		positiveRule("C", "use e.g. C = 1 uF/cm^2"),
+		nonNegRule("g_Na", "use 0 mS/cm^2 to block the channel"), nonNegRule("g_K", "use 0 mS/cm^2 to block the channel"),
+		nonNegRule("g_L", "use e.g. g_L = 0.3 mS/cm^2"),
 	},
 }
 
@@ -486,6 +641,9 @@ var adexSpec = &modelSpec{
 			DeltaT: m.get("Delta_T", i), TauW: m.get("tau_w", i), A: m.get("a", i), B: m.get("b", i),
 			VR: m.get("V_r", i), VPeak: m.get("V_peak", i)}, nil
 	},
+	rules: []rule{positiveRule("C", "use e.g. C = 281 pF"), positiveRule("g_L", "use e.g. g_L = 30 nS"),
+		positiveRule("Delta_T", "use e.g. Delta_T = 2 mV"), positiveRule("tau_w", "use e.g. tau_w = 144 ms"),
+		{name: "V_r", below: "V_peak"}},
 }
 
 func init() {
@@ -515,6 +673,7 @@ var izhSpec = &modelSpec{
 		return &neuron.Izhikevich{A: m.get("a", i) / 1000, B: m.get("b", i), C: m.get("c", i) * 1000,
 			D: m.get("d", i), VPeak: m.get("v_peak", i) * 1000}, nil
 	},
+	rules: []rule{positiveRule("a", "use e.g. a = 0.02 1/ms"), {name: "c", below: "v_peak"}},
 }
 
 func init() {
@@ -558,7 +717,7 @@ func izhFn(c *runtime.Call) (runtime.Value, error) {
 			return nil, err
 		}
 	}
-	return m.finish()
+	return m.finish(c)
 }
 
 func izhClasses() []string {
@@ -614,5 +773,5 @@ func rateFn(c *runtime.Call) (runtime.Value, error) {
 	spec.input = units.Dimensionless.Div(gd)
 	spec.example = "1 " + runtime.ChooseUnit([]float64{1}, spec.input).Symbol
 	m.spec, m.rate, m.rateFn, m.outDim = &spec, f, fn, out
-	return m.finish()
+	return m.finish(c)
 }

@@ -17,6 +17,8 @@ func TestBadInput(t *testing.T) {
 	nanHH.GNa = math.NaN()
 	negTau := NewNormLIF()
 	negTau.Tau = -1
+	hotHH := NewHH()
+	hotHH.Temp = 400
 	cases := []struct {
 		name string
 		p    Problem
@@ -31,6 +33,9 @@ func TestBadInput(t *testing.T) {
 		{"reset above threshold", Problem{Model: badLIF, Duration: 1}, nil, "must lie below threshold"},
 		{"NaN conductance", Problem{Model: nanHH, Duration: 1}, nil, "gNa is NaN"},
 		{"negative tau", Problem{Model: negTau, Duration: 1}, nil, "tau must be positive"},
+		// Squid axon kinetics were measured near 6.3 °C (Hodgkin & Huxley 1952);
+		// 400 °C is no temperature of living tissue.
+		{"absurd temperature", Problem{Model: hotHH, Duration: 1}, nil, "temperature must lie between 0 and 50 °C, got 400 °C"},
 		{"exact for HH", Problem{Model: NewHH(), Duration: 1}, &Settings{Method: Exact}, "Exact method needs a LIF"},
 		{"exp Euler for AdEx", Problem{Model: NewAdEx(), Duration: 1}, &Settings{Method: ExponentialEuler}, "no exponential Euler"},
 		{"unknown variable", Problem{Model: NewHH(), Duration: 1}, &Settings{Record: []string{"q"}}, `no state variable "q"; the model has V, m, h, n`},

@@ -57,10 +57,22 @@ func (m *HH) Params() []Param {
 	}
 }
 
-// Validate checks that parameters are finite, C positive and conductances ≥ 0.
+// HHMinTemp and HHMaxTemp bound the temperature (°C) HH accepts, and
+// HHTempWhy says why.
+const (
+	HHMinTemp = 0.0
+	HHMaxTemp = 50.0
+	HHTempWhy = "the gate rates were measured on squid axon near 6.3 °C and scale by Q10 = 3 (Hodgkin & Huxley 1952); far outside the range of living tissue the scaling means nothing, and the gates become too fast to integrate"
+)
+
+// Validate checks that parameters are finite, the temperature within
+// [HHMinTemp, HHMaxTemp] °C, C positive and conductances ≥ 0.
 func (m *HH) Validate() error {
 	if err := checkFinite("Hodgkin–Huxley", m.Params()); err != nil {
 		return err
+	}
+	if !(m.Temp >= HHMinTemp && m.Temp <= HHMaxTemp) {
+		return fmt.Errorf("neuron: Hodgkin–Huxley temperature must lie between %g and %g °C, got %g °C; %s", HHMinTemp, HHMaxTemp, m.Temp, HHTempWhy)
 	}
 	if err := positive("Hodgkin–Huxley", "C", m.C, "F/m^2"); err != nil {
 		return err
