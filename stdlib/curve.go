@@ -466,6 +466,8 @@ func registerCurve(reg *runtime.Registry) {
 			{Name: "y", Kind: runtime.KindNumbers, Doc: "the responses, one per input"},
 			{Name: "se", Kind: runtime.KindNumbers, Optional: true, Doc: "standard errors of y, in y's unit"},
 			{Name: "name", Kind: runtime.KindString, Default: `"measured"`},
+			{Name: "x_name", Kind: runtime.KindString, Default: `""`, Doc: "the name of the input for axes and columns, e.g. \"angle\"; empty gives I for a current, otherwise input"},
+			{Name: "y_name", Kind: runtime.KindString, Default: `""`, Doc: "the name of the response; empty gives rate for a frequency, otherwise response"},
 		},
 		Fn: curveFn,
 	})
@@ -490,5 +492,12 @@ func curveFn(c *runtime.Call) (runtime.Value, error) {
 			return nil, runtime.ValueErrorf("curve: se must have one value per point in y's unit (%s)", yd.Describe())
 		}
 	}
-	return NewSampledCurve(c.Str("name"), x, xd, y, yd, se), nil
+	cv := NewSampledCurve(c.Str("name"), x, xd, y, yd, se)
+	if n := c.Str("x_name"); n != "" {
+		cv.XName = n
+	}
+	if n := c.Str("y_name"); n != "" {
+		cv.YName = n
+	}
+	return cv, nil
 }

@@ -59,6 +59,8 @@ func (fv *FigureValue) Help() string {
 // plotOptions are plot's named arguments.
 type plotOptions struct {
 	title      string
+	xName      string // names every panel's x axis; "" keeps the automatic names
+	yName      string // names every panel's y axis
 	logX, logY bool
 	x          []float64 // for vectors; nil means against their index
 	xDim       units.Dim
@@ -68,7 +70,7 @@ type plotOptions struct {
 
 // plotFn is plot(): every item becomes a figure, and the figures are merged.
 func plotFn(c *runtime.Call) (runtime.Value, error) {
-	o := plotOptions{title: c.Str("title"), logX: c.Bool("log_x"), logY: c.Bool("log_y")}
+	o := plotOptions{title: c.Str("title"), xName: c.Str("x_name"), yName: c.Str("y_name"), logX: c.Bool("log_x"), logY: c.Bool("log_y")}
 	if c.Has("x") {
 		o.x, o.xDim = c.Floats("x")
 	}
@@ -109,13 +111,48 @@ func plotFn(c *runtime.Call) (runtime.Value, error) {
 		f.Title = o.title
 	}
 	for i := range f.Panels {
-		f.Panels[i].LogX = f.Panels[i].LogX || o.logX
-		f.Panels[i].LogY = f.Panels[i].LogY || o.logY
+		pn := &f.Panels[i]
+		pn.LogX, pn.LogY = pn.LogX || o.logX, pn.LogY || o.logY
+		pn.XLabel, pn.YLabel = renameAxis(pn.XLabel, o.xName), renameAxis(pn.YLabel, o.yName)
+	}
+	if hint := indexHint(items, f, o); hint != "" {
+		c.Warn(hint)
 	}
 	if err := f.Validate(); err != nil {
 		return nil, runtime.ValueErrorf("plot: %s", strings.TrimPrefix(err.Error(), "display: "))
 	}
 	return &FigureValue{F: f}, nil
+}
+
+// renameAxis gives an axis label the name, keeping its unit: "x (pA)" with
+// the name "current" becomes "current (pA)". An empty name keeps the label.
+func renameAxis(label, name string) string {
+	if name == "" {
+		return label
+	}
+	if _, unit, ok := splitLabel(label); ok {
+		return name + " (" + unit + ")"
+	}
+	return name
+}
+
+// indexHint explains a figure that is probably not what was meant: two or
+// more vectors of one length, drawn against their index in separate panels
+// because their dimensions differ, as plot(tab.angle, tab.rate) gives.
+func indexHint(items []runtime.Value, f *display.Figure, o plotOptions) string {
+	if o.x != nil || len(f.Panels) < 2 {
+		return ""
+	}
+	n := -1
+	for _, it := range items {
+		v, ok := it.(*runtime.Vector)
+		if !ok || (n >= 0 && len(v.V) != n) {
+			return ""
+		}
+		n = len(v.V)
+	}
+	return fmt.Sprintf("plot: the %d vectors are drawn against their index, one panel per dimension; "+
+		"to draw one against another write scatter(x, y) or plot(x = …, y = …), and name the axes with x_name = and y_name =\n", len(items))
 }
 
 // flatten spreads lists so that plot([a, b]) draws a and b.
@@ -222,7 +259,7 @@ func vectorFigure(y []float64, yd units.Dim, name string, o plotOptions, kind di
 		if len(o.x) != len(y) {
 			return nil, runtime.ValueErrorf("plot: x has %d values but y has %d; give vectors of the same length", len(o.x), len(y))
 		}
-		xa = NewAxis("x", o.x, o.xDim)
+		xa = NewAxis("x", o.x, o.xDim) // plot renames the axes after merging
 	}
 	s := display.Series{Kind: kind, X: xa.Data, Y: ya.Data}
 	return &display.Figure{Panels: []display.Panel{{XLabel: xa.Label, YLabel: ya.Label, Series: []display.Series{s}, NoLegend: true}}}, nil
@@ -521,13 +558,16 @@ func registerFigures(reg *runtime.Registry) {
 		Doc: "Draws its arguments in one figure: traces, curves, fits, tables, figures, vectors (against their index, or against x = …) " +
 			"and functions of one variable (builtins or formulas, drawn as y = f(x) at each point of over). Series whose panels have the " +
 			"same axis labels are overlaid with a legend; the others are stacked, sharing the x axis when its label agrees. " +
-			"plot(x = …, y = …) draws points. Axes carry units; log_x and log_y use logarithmic axes.",
+			"plot(x = …, y = …) or scatter(x, y) draws y against x as points; plot(a, b) with two vectors draws both against their index. " +
+			"Axes carry units and automatic names (x, y, index), which x_name and y_name replace; log_x and log_y use logarithmic axes.",
 		Params: []runtime.Param{
 			{Name: "items", Kind: runtime.KindAny, Rest: true, Doc: "what to draw"},
 			{Name: "x", Kind: runtime.KindNumbers, Optional: true, Doc: "x values for vectors and for y"},
 			{Name: "y", Kind: runtime.KindNumbers, Optional: true, Doc: "y values drawn as points against x"},
 			{Name: "over", Kind: runtime.KindNumbers, Optional: true, Doc: "inputs for functions, e.g. span(-4, 4, n = 200)"},
-			{Name: "title", Kind: runtime.KindString, Default: `""`},
+			{Name: "title", Kind: runtime.KindString, Default: `""`, Doc: "empty keeps the automatic title (a trace's model and stimulus)"},
+			{Name: "x_name", Kind: runtime.KindString, Default: `""`, Doc: "the name of every x axis, e.g. \"angle\"; empty keeps the automatic names"},
+			{Name: "y_name", Kind: runtime.KindString, Default: `""`, Doc: "the name of every y axis, e.g. \"rate\"; units are added"},
 			{Name: "log_x", Kind: runtime.KindBool, Default: "false"},
 			{Name: "log_y", Kind: runtime.KindBool, Default: "false"},
 		},
@@ -535,10 +575,13 @@ func registerFigures(reg *runtime.Registry) {
 	})
 	reg.Register(&runtime.Builtin{
 		Name: "scatter", Category: "figures", Returns: "a figure",
-		Doc: "Draws points (x[i], y[i]) with axes in the units of x and y; the same as plot(x = x, y = y).",
+		Doc: "Draws points (x[i], y[i]) with axes in the units of x and y; the same as plot(x = x, y = y). " +
+			"x_name and y_name name the axes (scatter(tab.angle, tab.rate, x_name = \"angle\", y_name = \"rate\")).",
 		Params: []runtime.Param{
 			{Name: "x", Kind: runtime.KindNumbers}, {Name: "y", Kind: runtime.KindNumbers},
 			{Name: "title", Kind: runtime.KindString, Default: `""`},
+			{Name: "x_name", Kind: runtime.KindString, Default: `"x"`, Doc: "the name of the x axis"},
+			{Name: "y_name", Kind: runtime.KindString, Default: `"y"`, Doc: "the name of the y axis"},
 		},
 		Fn: func(c *runtime.Call) (runtime.Value, error) {
 			x, xd := c.Floats("x")
@@ -548,6 +591,8 @@ func registerFigures(reg *runtime.Registry) {
 				return nil, runtime.ValueErrorf("scatter: %s", strings.TrimPrefix(err.Error(), "plot: "))
 			}
 			f.Title = c.Str("title")
+			pn := &f.Panels[0]
+			pn.XLabel, pn.YLabel = renameAxis(pn.XLabel, c.Str("x_name")), renameAxis(pn.YLabel, c.Str("y_name"))
 			return &FigureValue{F: f}, nil
 		},
 	})

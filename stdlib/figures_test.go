@@ -135,6 +135,13 @@ func TestPlotSVG(t *testing.T) {
 		{"histogram", `histogram([2, 3, 3, 5, 8] ms, bins = 3, name = "ISI")`, 1, []string{"ISI (ms)", "count"}},
 		// two stacked panels of different dimension, one series each
 		{"stacked", steps + `plot(steps.rate, steps.current)`, 2, []string{"y (Hz)", "y (pA)"}},
+		// names given for the axes replace x and y and keep the units
+		{"named points", steps + `plot(x = steps.current, y = steps.rate, x_name = "step", y_name = "firing")`, 1,
+			[]string{"step (pA)", "firing (Hz)"}},
+		{"named scatter", steps + `scatter(steps.current, steps.rate, x_name = "step", y_name = "firing")`, 1,
+			[]string{"step (pA)", "firing (Hz)"}},
+		{"named curve", `plot(curve([1, 2, 3], [4, 5, 6] Hz, x_name = "repeats", y_name = "firing"))`, 1,
+			[]string{"repeats", "firing (Hz)"}},
 	}
 	for _, c := range cases {
 		v, err := eval(t, nil, &record{}, c.src)
@@ -161,6 +168,34 @@ func TestPlotSVG(t *testing.T) {
 			if !strings.Contains(all, l) {
 				t.Errorf("%s: label %q not in the SVG texts %q", c.name, l, texts)
 			}
+		}
+	}
+}
+
+// TestIndexHint checks that vectors of one length stacked against their
+// index (probably meant as y against x) get a hint naming scatter, and that
+// an overlay in one panel or points against x get none. The hint is our own
+// wording; the check is only that it appears exactly when it should.
+func TestIndexHint(t *testing.T) {
+	const steps = `steps = read("../examples/data/l5-steps.csv")
+`
+	cases := []struct {
+		name, src string
+		hint      bool
+	}{
+		{"stacked of one length", `plot(steps.current, steps.rate)`, true},
+		{"overlaid in one panel", `plot(steps.rate, steps.rate_se)`, false},
+		{"points against x", `plot(x = steps.current, y = steps.rate)`, false},
+		{"different lengths", `plot(steps.rate, [1, 2] pA)`, false},
+	}
+	for _, c := range cases {
+		r := &record{}
+		if _, err := eval(t, nil, r, steps+c.src); err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		got := strings.Contains(strings.Join(r.streams, ""), "scatter(x, y)")
+		if got != c.hint {
+			t.Errorf("%s: hint shown %v, want %v (streams %q)", c.name, got, c.hint, r.streams)
 		}
 	}
 }
