@@ -412,6 +412,7 @@ func FunctionFigure(c *runtime.Call, fs []runtime.Function, over *runtime.Vector
 	xa := NewAxis("x", over.V, over.Dim)
 	fig := &display.Figure{}
 	panelOf := map[units.Dim]int{}
+	var kinds []derivKinds // per panel
 	var names []string
 	for _, f := range fs {
 		if err := c.Ctx.Err(); err != nil {
@@ -426,9 +427,11 @@ func FunctionFigure(c *runtime.Call, fs []runtime.Function, over *runtime.Vector
 			i = len(fig.Panels)
 			panelOf[d] = i
 			fig.Panels = append(fig.Panels, display.Panel{XLabel: xa.Label})
+			kinds = append(kinds, derivKinds{})
 		}
+		kinds[i].add(f.FuncName())
 		u := runtime.ChooseUnit(y, d)
-		fig.Panels[i].YLabel = Label("f(x)", u)
+		fig.Panels[i].YLabel = Label(kinds[i].label(), u)
 		fig.Panels[i].Series = append(fig.Panels[i].Series,
 			display.Series{Kind: display.Line, Name: f.FuncName(), X: xa.Data, Y: AxisIn("", y, u).Data})
 		names = append(names, f.FuncName())
@@ -436,6 +439,30 @@ func FunctionFigure(c *runtime.Call, fs []runtime.Function, over *runtime.Vector
 	fig.Title = joinNames(names)
 	fig.SharedX = len(fig.Panels) > 1
 	return fig, nil
+}
+
+// derivKinds records whether a panel of functions holds functions, their
+// derivatives (named "derivative of …" by derivative()), or both.
+type derivKinds struct{ plain, deriv bool }
+
+func (k *derivKinds) add(name string) {
+	if strings.HasPrefix(name, "derivative of ") {
+		k.deriv = true
+	} else {
+		k.plain = true
+	}
+}
+
+// label is the y-axis name: f(x), f′(x) (with the prime U+2032, the usual
+// mark of a first derivative), or both.
+func (k derivKinds) label() string {
+	switch {
+	case k.plain && k.deriv:
+		return "f(x), f′(x)"
+	case k.deriv:
+		return "f′(x)"
+	}
+	return "f(x)"
 }
 
 // evalOver evaluates f at every input; a point where f fails is an error.

@@ -124,6 +124,26 @@ func TestFunctionFigure(t *testing.T) {
 	}
 }
 
+// TestFunctionFigureLabels checks the y-axis names of function plots: f(x)
+// for functions, f′(x) for derivatives (the prime is the usual notation of a
+// first derivative, common practice), both for a mix.
+func TestFunctionFigureLabels(t *testing.T) {
+	cases := []struct{ src, want string }{
+		{`plot(logistic, tanh, over = span(-4, 4, n = 9))`, "f(x)"},
+		{`plot(derivative(logistic), over = span(-4, 4, n = 9))`, "f′(x)"},
+		{`plot(logistic, derivative(logistic), over = span(-4, 4, n = 9))`, "f(x), f′(x)"},
+	}
+	for _, c := range cases {
+		v, err := eval(t, nil, &record{}, c.src)
+		if err != nil {
+			t.Fatalf("%s: %v", c.src, err)
+		}
+		if got := v.(*FigureValue).F.Panels[0].YLabel; got != c.want {
+			t.Errorf("%s: y axis %q, want %q", c.src, got, c.want)
+		}
+	}
+}
+
 // TestPopulationDisplay checks the family figure and indexing.
 func TestPopulationDisplay(t *testing.T) {
 	v := rateEval(t, "seed(3)\nrate_population(150, positive_only = true)").(*Population)
