@@ -171,6 +171,29 @@ func window(start, stop float64) string {
 	return "from " + fmtQ(start, units.Time) + " to " + fmtQ(stop, units.Time)
 }
 
+// checkWindow reports a stop not after start in the units the cell wrote,
+// before the numerics package would tell it in seconds.
+func checkWindow(c *runtime.Call) error {
+	if c.Has("stop") && !(c.Float("stop") > c.Float("start")) {
+		return runtime.ValueErrorf("%s: stop (%s) must be after start (%s); swap them or lengthen the window", c.Builtin.Name, c.Quantity("stop"), c.Quantity("start"))
+	}
+	return nil
+}
+
+// checkPositive reports a time or amplitude argument that is not positive
+// (or, with zeroOK, negative), in the unit the cell wrote.
+func checkPositive(c *runtime.Call, name string, zeroOK bool, hint string) error {
+	v := c.Float(name)
+	if v > 0 || (zeroOK && v == 0) {
+		return nil
+	}
+	want := "positive"
+	if zeroOK {
+		want = "≥ 0"
+	}
+	return runtime.ValueErrorf("%s: %s must be %s, got %s; %s", c.Builtin.Name, name, want, c.Quantity(name), hint)
+}
+
 // stopOf is the stop argument, +Inf when not given.
 func stopOf(c *runtime.Call) float64 {
 	if c.Has("stop") {
@@ -216,6 +239,9 @@ func stepBuiltin() *runtime.Builtin {
 			"Steps add (step(…) + step(…)) and scale (2 * step(…)) to build a protocol.",
 		Params: []runtime.Param{amp(ampDoc), timeParam("start", "0 ms", "onset"), optTime("stop", "offset; none means never")},
 		Fn: func(c *runtime.Call) (runtime.Value, error) {
+			if err := checkWindow(c); err != nil {
+				return nil, err
+			}
 			q, on, off := c.Quantity("amplitude"), c.Float("start"), stopOf(c)
 			return newStimulus("step", stimulus.Step{Amplitude: q.V, Start: on, Stop: off}, q.Dim,
 				"step "+q.String()+" "+window(on, off), math.Max(on, off))
@@ -238,6 +264,9 @@ func rampBuiltin() *runtime.Builtin {
 			if err := sameDim("ramp", "from", from, to.Dim); err != nil {
 				return nil, err
 			}
+			if err := checkWindow(c); err != nil {
+				return nil, err
+			}
 			on, off := c.Float("start"), c.Float("stop")
 			return newStimulus("ramp", stimulus.Ramp{From: from.V, To: to.V, Start: on, Stop: off}, to.Dim,
 				"ramp "+fmtQ(from.V, to.Dim)+" → "+to.String()+" "+window(on, off), off)
@@ -256,6 +285,9 @@ func sineBuiltin() *runtime.Builtin {
 		Fn: func(c *runtime.Call) (runtime.Value, error) {
 			q, off := c.Quantity("amplitude"), c.Quantity("offset")
 			if err := sameDim("sine", "offset", off, q.Dim); err != nil {
+				return nil, err
+			}
+			if err := checkWindow(c); err != nil {
 				return nil, err
 			}
 			on, stop := c.Float("start"), stopOf(c)
@@ -285,6 +317,16 @@ func pulsesFn(c *runtime.Call) (runtime.Value, error) {
 	n, err := c.Int("count", 0, 1<<30)
 	if err != nil {
 		return nil, err
+	}
+	if err := checkPositive(c, "width", false, "use e.g. width = 1 ms"); err != nil {
+		return nil, err
+	}
+	for _, name := range []string{"rate", "period"} {
+		if c.Has(name) {
+			if err := checkPositive(c, name, false, "use e.g. rate = 20 Hz or period = 50 ms"); err != nil {
+				return nil, err
+			}
+		}
 	}
 	q := c.Quantity("amplitude")
 	w := stimulus.PulseTrain{Amplitude: q.V, Width: c.Float("width"), Count: n, Start: c.Float("start")}
@@ -328,6 +370,16 @@ func noiseFn(c *runtime.Call) (runtime.Value, error) {
 	sig, mean := c.Quantity("sigma"), c.Quantity("mean")
 	if err := sameDim("noise", "mean", mean, sig.Dim); err != nil {
 		return nil, err
+	}
+	for _, p := range []struct {
+		name   string
+		zeroOK bool
+		hint   string
+	}{{"sigma", true, "a standard deviation has no sign; give its size"}, {"tau", false, "use a correlation time such as 5 ms"},
+		{"dt", false, "use a grid step such as 0.1 ms"}, {"duration", false, "give the length of the run, e.g. 1000 ms"}} {
+		if err := checkPositive(c, p.name, p.zeroOK, p.hint); err != nil {
+			return nil, err
+		}
 	}
 	p := stimulus.OUParams{Mean: mean.V, Sigma: sig.V, Tau: c.Float("tau"), Dt: c.Float("dt"),
 		Start: c.Float("start"), Duration: c.Float("duration"), Seed: c.Seed()}
