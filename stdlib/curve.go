@@ -308,13 +308,36 @@ func (c *Curve) Figure() (*display.Figure, error) {
 	for _, s := range c.Extra {
 		// Drawn as lines so that they stay apart from the main points when
 		// they coincide (a LIF's first-ISI rate is its steady rate).
-		name := strings.ReplaceAll(s.Name, "_", " ")
+		name := legendName(s.Name)
 		if c.Name != "" {
 			name = c.Name + ", " + name
 		}
 		p.Series = append(p.Series, display.Series{Kind: display.Line, Name: name, X: xa.Data, Y: AxisIn("", s.Y, yu).Data})
 	}
 	return &display.Figure{Title: c.Name, Panels: []display.Panel{p}}, nil
+}
+
+// legendPhrases are series names whose legend needs more than spaces for
+// underscores: a compound modifier takes a hyphen ("first-ISI rate", the
+// rate from the first inter-spike interval).
+var legendPhrases = map[string]string{"first_isi_rate": "first-ISI rate"}
+
+// legendAbbrevs are the trade's abbreviations, written in capitals in legends.
+var legendAbbrevs = map[string]string{"isi": "ISI", "cv": "CV", "lv": "LV", "psth": "PSTH", "rms": "RMS", "fi": "f–I"}
+
+// legendName is how a series name (a field name such as first_isi_rate)
+// reads in a legend: underscores become spaces and abbreviations capitals.
+func legendName(field string) string {
+	if p, ok := legendPhrases[field]; ok {
+		return p
+	}
+	words := strings.Split(field, "_")
+	for i, w := range words {
+		if a, ok := legendAbbrevs[w]; ok {
+			words[i] = a
+		}
+	}
+	return strings.Join(words, " ")
 }
 
 // Show implements runtime.Shower: the table, then the figure.

@@ -144,6 +144,33 @@ func TestFunctionFigureLabels(t *testing.T) {
 	}
 }
 
+// TestLegendName checks how series names read in legends: a compound
+// modifier takes a hyphen and abbreviations are capitals (common practice in
+// English technical writing, e.g. "first-ISI rate").
+func TestLegendName(t *testing.T) {
+	cases := []struct{ field, want string }{
+		{"first_isi_rate", "first-ISI rate"},
+		{"mean_isi", "mean ISI"},
+		{"steady_rate", "steady rate"},
+		{"noise-free", "noise-free"},
+	}
+	for _, c := range cases {
+		if got := legendName(c.field); got != c.want {
+			t.Errorf("legendName(%q) = %q, want %q", c.field, got, c.want)
+		}
+	}
+	// the legend of a curve with such a series, as a sweep adds it
+	cv := NewSampledCurve("sweep", []float64{0, 1e-10}, units.Current, []float64{0, 10}, units.Frequency, nil)
+	cv.AddSeries("first_isi_rate", []float64{0, 12})
+	f, err := cv.Figure()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := f.Panels[0].Series[1].Name; got != "sweep, first-ISI rate" {
+		t.Errorf("legend %q, want %q", got, "sweep, first-ISI rate")
+	}
+}
+
 // TestPopulationDisplay checks the family figure and indexing.
 func TestPopulationDisplay(t *testing.T) {
 	v := rateEval(t, "seed(3)\nrate_population(150, positive_only = true)").(*Population)
