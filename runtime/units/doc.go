@@ -8,7 +8,9 @@
 //	si = value·Scale + Offset
 //
 // so 12.5 ms is stored as 0.0125 with Dim Time, and Format(0.0125, Time)
-// prints "12.5 ms" again.
+// prints "12.5 ms" again. A value far beyond the trade's display units
+// prints in the SI unit in e notation ("1e-20 A"), not as an e-notation
+// number before a prefix.
 //
 // Unit text is a name with an optional SI prefix (f p n u µ μ m c k M G T,
 // SI Brochure, 9th edition, table 7), an optional integer power, and such

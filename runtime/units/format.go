@@ -6,12 +6,16 @@ import (
 )
 
 // dimInfo is what the package knows about a named dimension: its name, the
-// display units the trade uses from the largest to the smallest, and which of
-// them is the usual one (used for 0, NaN, ±Inf and in Describe).
+// decimal display units the trade uses from the largest to the smallest,
+// which of them is the usual one (used for 0, NaN, ±Inf and in Describe),
+// the larger non-decimal units (h, min) for values beyond the decimal ones,
+// and the coherent SI unit for values beyond every display unit.
 type dimInfo struct {
 	name  string
 	units []Unit
 	def   int
+	long  []Unit
+	si    Unit
 }
 
 // infos maps each named dimension to its dimInfo. It is filled once and only
@@ -34,11 +38,18 @@ func buildInfos() map[Dim]*dimInfo {
 			if s == usual {
 				info.def = i
 			}
+			if u.Scale == 1 {
+				info.si = u
+			}
+		}
+		if info.si.Symbol == "" {
+			info.si = info.units[0]
 		}
 		m[d] = info
 	}
 	m[Dimensionless] = &dimInfo{name: "dimensionless", units: []Unit{{Scale: 1}}}
 	add(Time, "time", "ms", "s", "ms", "µs", "ns")
+	m[Time].long = []Unit{MustParse("h"), MustParse("min")}
 	add(Length, "length", "µm", "m", "cm", "mm", "µm", "nm")
 	add(Mass, "mass", "g", "kg", "g", "mg", "µg")
 	add(Current, "current", "nA", "A", "mA", "µA", "nA", "pA")
@@ -50,7 +61,7 @@ func buildInfos() map[Dim]*dimInfo {
 	add(Resistance, "resistance", "MΩ", "GΩ", "MΩ", "kΩ", "Ω")
 	add(Capacitance, "capacitance", "pF", "F", "mF", "µF", "nF", "pF")
 	add(Charge, "charge", "pC", "C", "mC", "µC", "nC", "pC")
-	add(Frequency, "frequency", "Hz", "kHz", "Hz")
+	add(Frequency, "frequency", "Hz", "GHz", "MHz", "kHz", "Hz")
 	add(Area, "area", "µm^2", "m^2", "cm^2", "mm^2", "µm^2")
 	add(Volume, "volume", "L", "L", "mL", "µL", "nL", "pL")
 	add(Velocity, "velocity", "m/s", "m/s")
@@ -67,16 +78,24 @@ func infoOf(d Dim) *dimInfo { return infos[d] }
 
 // A mantissa in [lowMant, highMant) prints, after rounding to six
 // significant digits, as a number in [1, 1000): 999.9996 is "1000" and so
-// belongs to the next larger unit, 0.9999996 is "1" and stays.
+// belongs to the next larger unit, 0.9999996 is "1" and stays. A mantissa
+// in [lowNear, highNear) still reads well in plain notation ("0.63 pF",
+// "3600 s"); beyond that a prefixed unit would carry an e-notation number
+// ("1e-08 pA") or too many integer digits ("123457 s").
 const (
 	lowMant  = 1 - 5e-7
 	highMant = 1000 * (1 - 5e-7)
+	lowNear  = 1e-3 * (1 - 5e-7)
+	highNear = 1e4 * (1 - 5e-7)
 )
 
 // pick returns the display unit for a value of magnitude a in SI: the first
-// unit, from the largest down, that puts the mantissa in [1, 1000); failing
-// that, the unit that brings it nearest to that range; the usual unit for
-// 0, NaN and ±Inf.
+// decimal unit, from the largest down, that puts the mantissa in [1, 1000);
+// failing that, the decimal unit that brings it nearest to that range if the
+// mantissa there stays in [0.001, 10000); failing that, for a large value,
+// a non-decimal unit (h, min) that puts it in [1, 1000); failing that, the
+// coherent SI unit, in which the number prints in e notation ("1e-20 A").
+// For 0, NaN and ±Inf it returns the usual unit.
 func (info *dimInfo) pick(a float64) Unit {
 	if a == 0 || math.IsNaN(a) || math.IsInf(a, 0) {
 		return info.units[info.def]
@@ -93,7 +112,18 @@ func (info *dimInfo) pick(a float64) Unit {
 			best, bestOff = i, m/highMant
 		}
 	}
-	return info.units[best]
+	u := info.units[best]
+	if m := a / u.Scale; m >= lowNear && m < highNear {
+		return u
+	} else if m < lowNear {
+		return info.si
+	}
+	for _, l := range info.long {
+		if m := a / l.Scale; m >= lowMant && m < highMant {
+			return l
+		}
+	}
+	return info.si
 }
 
 // FormatNumber returns v with six significant digits and trailing zeros
@@ -118,7 +148,10 @@ func AppendNumber(dst []byte, v float64) []byte {
 // Format returns a value stored in SI, of dimension d, in a readable unit:
 // Format(0.0125, Time) is "12.5 ms", Format(1.5e-9, Current) "1.5 nA". The
 // unit is the trade's display unit that puts the number in [1, 1000), else
-// the nearest; 0, NaN and ±Inf use the dimension's usual unit ("0 ms",
+// the nearest while the number there stays in [0.001, 10000) ("0.63 pF",
+// "3600 s"), else for long times hours or minutes ("34.2936 h"), else the
+// coherent SI unit with the number in e notation ("1e-20 A", never
+// "1e-08 pA"); 0, NaN and ±Inf use the dimension's usual unit ("0 ms",
 // "NaN mV"). A dimensionless value prints as the bare number. A dimension
 // without a name prints in coherent SI units, built from V, S, Ω, F and C
 // where that is shorter ("3.2 V/s"), else from base units. Temperatures

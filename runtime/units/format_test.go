@@ -66,7 +66,21 @@ func TestFormat(t *testing.T) {
 		{1.5e-9, Current, "1.5 nA"},                     // 1.5e-9 A / 1e-9
 		{-0.065, Voltage, "-65 mV"},                     // -0.065 V / 1e-3
 		{2, Time, "2 s"},                                //
-		{3600, Time, "3600 s"},                          // no larger display unit: nearest is s
+		{3600, Time, "3600 s"},                          // below 10⁴ s plain seconds read best
+		{123456.789, Time, "34.2936 h"},                 // 123456789 ms; 1 h = 3600 s (SI Brochure, table 8)
+		{5000, Time, "5000 s"},                          // below 10⁴ s stays in s
+		{20000, Time, "5.55556 h"},                      // 20000/3600
+		{1.5e4 - 0.5, Time, "4.16653 h"},                // 14999.5/3600
+		{1e8, Time, "1e+08 s"},                          // 27778 h: beyond every unit, SI in e notation
+		{1e9, Frequency, "1 GHz"},                       // giga = 1e9
+		{2.5e6, Frequency, "2.5 MHz"},                   // mega = 1e6
+		{1e-20, Current, "1e-20 A"},                     // 1e-8 pA would mix a prefix with e notation
+		{5e-16, Current, "5e-16 A"},                     // 0.0005 pA: below 0.001 in the smallest unit
+		{2e-15, Current, "0.002 pA"},                    // still plain in the smallest unit
+		{1e-15, Capacitance, "0.001 pF"},                //
+		{1e-19, Capacitance, "1e-19 F"},                 //
+		{1e15, Resistance, "1e+15 Ω"},                   // 10⁶ GΩ
+		{5e12, Resistance, "5000 GΩ"},                   // plain below 10⁴ in the largest unit
 		{2e-8, Time, "20 ns"},                           //
 		{1e-5, CurrentDensity, "1 nA/cm^2"},             // 1e-5 A/m² = 1e-9 A/cm² = 1 nA/cm² (1 cm² = 1e-4 m²)
 		{0.1, CurrentDensity, "10 µA/cm^2"},             // 0.1 A/m² = 1e-5 A/cm² = 10 µA/cm²
