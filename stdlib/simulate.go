@@ -301,17 +301,38 @@ func contains(xs []string, s string) bool {
 	return false
 }
 
-// spikeSummary is one line: count, rate, first spike, CV.
+// spikeSummary is one line: count, rate, first spike, CV, each to the four
+// significant digits tables use (a summary is read, not computed with).
 func spikeSummary(train []float64, duration float64) string {
 	if len(train) == 0 {
 		return "no spikes in " + fmtQ(duration, units.Time)
 	}
 	s := fmt.Sprintf("%d spikes in %s (mean rate %s), first at %s", len(train), fmtQ(duration, units.Time),
-		fmtQ(float64(len(train))/duration, units.Frequency), fmtQ(train[0], units.Time))
+		fmtQ(sig4(float64(len(train))/duration), units.Frequency), fmtQ(sig4(train[0]), units.Time))
 	if cv, err := spikes.CV(train); err == nil && !math.IsNaN(cv) {
-		s += ", CV of ISIs " + units.FormatNumber(math.Round(cv*1000)/1000)
+		s += ", CV of ISIs " + units.FormatNumber(sig4(math.Round(cv*1e4)/1e4))
 	}
 	return s
+}
+
+// sig4 rounds v to four significant digits.
+func sig4(v float64) float64 {
+	if v == 0 || math.IsInf(v, 0) || math.IsNaN(v) {
+		return v
+	}
+	p := math.Pow(10, 3-math.Floor(math.Log10(math.Abs(v))))
+	return math.Round(v*p) / p
+}
+
+// summary is the line under a trace: its spikes, or for a rate neuron
+// (which has none) the range and final value of its rate.
+func (t *Trace) summary() string {
+	if t.model.spec.title != rateSpec.title || len(t.tr.Data) == 0 {
+		return spikeSummary(t.tr.Spikes, t.duration)
+	}
+	r, d := t.tr.Data[0], t.dims[0]
+	return fmt.Sprintf("rate neuron over %s: r from %s to %s, %s at the end", fmtQ(t.duration, units.Time),
+		fmtQ(sig4(paramMin(r)), d), fmtQ(sig4(paramMax(r)), d), fmtQ(sig4(r[len(r)-1]), d))
 }
 
 // Trace is the result of simulating one neuron: sample times, recorded
@@ -364,7 +385,7 @@ func (t *Trace) Duration() float64 { return t.duration }
 
 // String is a one-line summary: model, samples, spikes.
 func (t *Trace) String() string {
-	return fmt.Sprintf("trace of %s, %s, %d samples: %s", t.model.spec.title, t.stim, len(t.tr.T), spikeSummary(t.tr.Spikes, t.duration))
+	return fmt.Sprintf("trace of %s, %s, %d samples: %s", t.model.spec.title, t.stim, len(t.tr.T), t.summary())
 }
 
 // FieldNames implements runtime.Fielder.
@@ -429,7 +450,7 @@ func (t *Trace) Show() ([]display.Bundle, error) {
 	if err != nil {
 		return nil, err
 	}
-	return []display.Bundle{b, display.Text(spikeSummary(t.tr.Spikes, t.duration))}, nil
+	return []display.Bundle{b, display.Text(t.summary())}, nil
 }
 
 // Figure implements Plottable: the membrane potential on top, other
