@@ -37,6 +37,9 @@ type Curve struct {
 	// Line asks for a sampled curve to be drawn as a line (a dense
 	// estimate or slope) rather than as points.
 	Line bool
+	// LogX asks for a logarithmic input axis (inputs spread over decades,
+	// such as noise levels); the inputs must then be positive.
+	LogX bool
 	// YUnit, if set, is the unit responses are shown in (a slope in Hz/nA
 	// rather than the SI form 1/C); nil chooses one from the values.
 	YUnit  *units.Unit
@@ -304,7 +307,7 @@ func (c *Curve) Figure() (*display.Figure, error) {
 			main.YErr = AxisIn("", c.SE, units.Unit{Symbol: yu.Symbol, Scale: yu.Scale}).Data
 		}
 	}
-	p := display.Panel{XLabel: xa.Label, YLabel: Label(c.YName, yu), Series: []display.Series{main}}
+	p := display.Panel{XLabel: xa.Label, YLabel: Label(c.YName, yu), Series: []display.Series{main}, LogX: c.LogX}
 	for _, s := range c.Extra {
 		// Drawn as lines so that they stay apart from the main points when
 		// they coincide (a LIF's first-ISI rate is its steady rate).

@@ -193,6 +193,34 @@ func TestPopulationDisplay(t *testing.T) {
 	}
 }
 
+// TestReadoutNoiseAxis checks that noise levels spread over decades (the
+// default 0.003–0.3) are drawn on a logarithmic axis, which never reaches 0
+// or below, and levels within a decade on a linear one (common practice for
+// quantities chosen in decades).
+func TestReadoutNoiseAxis(t *testing.T) {
+	cases := []struct {
+		noise string
+		log   bool
+	}{
+		{"", true},
+		{", noise = [0.001, 0.3]", true},
+		{", noise = [0.1, 0.2, 0.3]", false},
+	}
+	for _, c := range cases {
+		v := rateEval(t, "seed(3)\nformula sq(x) = x^2\nreadout_noise(rate_population(20), sq"+c.noise+")")
+		f, err := v.(*Curve).Figure()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := f.Panels[0].LogX; got != c.log {
+			t.Errorf("readout_noise(…%s): logarithmic x axis %v, want %v", c.noise, got, c.log)
+		}
+		if _, err := f.SVG(); err != nil {
+			t.Errorf("readout_noise(…%s): %v", c.noise, err)
+		}
+	}
+}
+
 // BenchmarkPopulation1000 builds a 1,000-neuron population and its responses
 // at 1,000 inputs through the language.
 func BenchmarkPopulation1000(b *testing.B) {

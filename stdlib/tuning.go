@@ -300,6 +300,14 @@ func registerPopulation(reg *runtime.Registry) {
 	)
 }
 
+// spansDecade reports whether positive values spread over at least a factor
+// of 10, where a logarithmic axis shows them evenly (common practice for
+// levels chosen in decades); within a decade a linear axis reads better.
+func spansDecade(xs []float64) bool {
+	lo, hi := minMax(xs)
+	return len(xs) > 1 && lo > 0 && hi >= 10*lo
+}
+
 func ratePopulation(c *runtime.Call) (runtime.Value, error) {
 	xs, _ := c.Floats("over")
 	var p *tuning.Population
@@ -488,6 +496,7 @@ func readoutNoise(c *runtime.Call) (runtime.Value, error) {
 	name := "readout error of " + c.Value("target").(runtime.Function).FuncName()
 	cv := NewSampledCurve(name, levels[:len(noisy)], units.Dimensionless, noisy, d, nil)
 	cv.XName, cv.YName, cv.Line, cv.Source = "noise", "RMS error", true, popSource
+	cv.LogX = spansDecade(levels) // the default levels run from 0.003 to 0.3
 	cv.AddSeries("noise-free", clean)
 	if len(noisy) < len(levels) {
 		cv.Note = fmt.Sprintf("interrupted: %d of %d noise levels computed", len(noisy), len(levels))
