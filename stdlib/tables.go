@@ -48,12 +48,28 @@ func NewTableValue(t *table.Table) (*TableValue, error) {
 		}
 		u, err := columnUnit(col.Unit)
 		if err != nil {
-			return nil, runtime.UnitErrorf("table: column %q: %v; write a unit such as pA, mV or Hz in the header, e.g. %q",
-				name, err, name+" (pA)")
+			return nil, columnUnitError(name, col.Unit, err)
 		}
 		tv.units[i] = u
 	}
 	return tv, nil
+}
+
+// angleUnits are header units of angles. Angles are plain numbers in the
+// language (the SI treats the radian as dimensionless), so such a column
+// goes without a unit rather than with a near miss such as degC.
+var angleUnits = map[string]bool{"deg": true, "degree": true, "degrees": true, "°": true,
+	"rad": true, "radian": true, "radians": true}
+
+// columnUnitError says what is wrong with a header's unit and how to write it:
+// a physical unit, or nothing for a dimensionless column.
+func columnUnitError(name, unit string, err error) error {
+	if angleUnits[strings.ToLower(strings.TrimSpace(unit))] {
+		return runtime.UnitErrorf("table: column %q: angles are dimensionless numbers and take no unit; "+
+			"write the header as %q and keep the values as they are (the column name can say degrees, e.g. %q)", name, name, name+"_deg")
+	}
+	return runtime.UnitErrorf("table: column %q: %v; write a unit such as pA, mV or Hz in the header, e.g. %q, "+
+		"or no unit for a dimensionless column (a count, an angle, a ratio), e.g. %q", name, err, name+" (pA)", name)
 }
 
 func columnUnit(text string) (units.Unit, error) {

@@ -53,6 +53,7 @@ func TestReadErrors(t *testing.T) {
 	files := map[string]string{
 		"badunit.csv": "# invented demo data\n# second comment\ncurrent (pAmp),rate (Hz)\n1,2\n",
 		"badcell.csv": "current (pA),rate (Hz)\n1,2\n3,fast\n",
+		"angle.csv":   "# invented demo data\nangle (deg),rate (Hz)\n0,5\n45,12\n",
 	}
 	for name, body := range files {
 		if err := os.WriteFile(filepath.Join(dir, name), []byte(body), 0o644); err != nil {
@@ -62,12 +63,17 @@ func TestReadErrors(t *testing.T) {
 	cases := []struct {
 		src  string
 		want []string
+		not  []string // must not be suggested
 	}{
-		// the unknown unit is named with its column and the header's line (3, after two comments)
-		{`read("` + filepath.Join(dir, "badunit.csv") + `")`, []string{"line 3", `column "current"`, "pAmp"}},
-		{`read("` + filepath.Join(dir, "badcell.csv") + `")`, []string{"badcell.csv", "line 3"}},
-		{`read(3 mV)`, []string{"argument path must be a string"}},
-		{`read("` + filepath.Join(dir, "none.csv") + `")`, []string{"no file", "check the name"}},
+		// the unknown unit is named with its column and the header's line (3, after two comments),
+		// and the fix includes leaving a dimensionless column without a unit
+		{`read("` + filepath.Join(dir, "badunit.csv") + `")`, []string{"line 3", `column "current"`, "pAmp", "no unit for a dimensionless column"}, nil},
+		// an angle unit: angles are dimensionless (SI Brochure, 9th ed., 2019: rad = m/m = 1; table number 4 from memory),
+		// so the header goes without a unit; never a near-miss unit of temperature or a current
+		{`read("` + filepath.Join(dir, "angle.csv") + `")`, []string{`column "angle"`, "take no unit", `header as "angle"`}, []string{"degC", "(pA)"}},
+		{`read("` + filepath.Join(dir, "badcell.csv") + `")`, []string{"badcell.csv", "line 3"}, nil},
+		{`read(3 mV)`, []string{"argument path must be a string"}, nil},
+		{`read("` + filepath.Join(dir, "none.csv") + `")`, []string{"no file", "check the name"}, nil},
 	}
 	for _, c := range cases {
 		_, err := eval(t, nil, &record{}, c.src)
@@ -78,6 +84,11 @@ func TestReadErrors(t *testing.T) {
 		for _, w := range c.want {
 			if !strings.Contains(err.Error(), w) {
 				t.Errorf("%s: error %q lacks %q", c.src, err, w)
+			}
+		}
+		for _, w := range c.not {
+			if strings.Contains(err.Error(), w) {
+				t.Errorf("%s: error %q suggests %q", c.src, err, w)
 			}
 		}
 	}
