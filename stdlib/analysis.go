@@ -275,8 +275,9 @@ func (p *SpikePop) rasterFigure() *display.Figure {
 
 // PSTH is a peri-stimulus time histogram of a population's spikes.
 type PSTH struct {
-	r    *spikes.PSTHResult
-	name string
+	r      *spikes.PSTHResult
+	name   string
+	smooth bool // the rate is smoothed, the counts are not
 }
 
 var _ Plottable = (*PSTH)(nil)
@@ -294,7 +295,15 @@ func (p *SpikePop) psth(bin, smooth float64) (*PSTH, error) {
 	if err != nil {
 		return nil, runtime.ValueErrorf("psth: %s", trimPkg(err.Error()))
 	}
-	return &PSTH{r: r, name: fmt.Sprintf("PSTH of %d neurons, %s bins", len(p.trains), fmtQ(bin, units.Time))}, nil
+	who := fmt.Sprintf("%d neurons", len(p.trains))
+	if len(p.trains) == 1 {
+		who = "one trace"
+	}
+	name := fmt.Sprintf("PSTH of %s, %s bins", who, fmtQ(bin, units.Time))
+	if smooth > 0 {
+		name += ", rate smoothed with σ = " + fmtQ(smooth, units.Time)
+	}
+	return &PSTH{r: r, name: name, smooth: smooth > 0}, nil
 }
 
 // Type implements runtime.Value.
@@ -329,8 +338,17 @@ func (p *PSTH) Show() ([]display.Bundle, error) {
 		start[i] = p.r.Edges[i] * 1e3
 	}
 	t := &display.Table{Title: p.name, Columns: []display.Column{display.Numbers("bin start", "ms", start),
-		display.Numbers("count", "", p.r.Counts), display.Numbers("rate", "Hz", p.r.Rate)}}
+		display.Numbers("count", "", p.r.Counts), display.Numbers(p.rateLabel(), "Hz", p.r.Rate)}}
 	return ShowBoth(t, f)
+}
+
+// rateLabel names the rate column: "smoothed rate" beside the raw counts
+// when it is smoothed.
+func (p *PSTH) rateLabel() string {
+	if p.smooth {
+		return "smoothed rate"
+	}
+	return "rate"
 }
 
 // FieldNames implements runtime.Fielder.
@@ -353,21 +371,25 @@ func (p *PSTH) Field(name string) (runtime.Value, error) {
 	return nil, fmt.Errorf("a psth has no field %s; its fields are t, rate, count", name)
 }
 
+// popArgOf returns the pop argument: a population result, or a single
+// trace taken as a population of one (one trial's histogram).
 func popArgOf(c *runtime.Call) (*SpikePop, error) {
-	p, ok := c.Value("pop").(*SpikePop)
-	if !ok {
-		return nil, runtime.ArgumentErrorf("%s: pop must be a population result: simulate a model with vector parameters, e.g. simulate(lif(tau_m = [10, 20, 30] ms), …); got %s",
-			c.Builtin.Name, c.Value("pop").Type())
+	switch x := c.Value("pop").(type) {
+	case *SpikePop:
+		return x, nil
+	case *Trace:
+		return &SpikePop{trains: [][]float64{x.Spikes()}, duration: x.Duration(), model: x.model, stim: x.stim}, nil
 	}
-	return p, nil
+	return nil, runtime.ArgumentErrorf("%s: pop must be a population result or a trace: simulate a model with vector parameters, e.g. simulate(lif(tau_m = [10, 20, 30] ms), …); got %s",
+		c.Builtin.Name, c.Value("pop").Type())
 }
 
 func psthBuiltin() *runtime.Builtin {
 	return &runtime.Builtin{
 		Name: "psth", Category: "analysis", Returns: "a histogram (table and figure)",
-		Doc:    "The population rate as a histogram: spikes of all neurons in each bin divided by the number of neurons and the bin width (Hz), optionally smoothed by a Gaussian of standard deviation smooth. The run must be a whole number of bins.",
+		Doc:    "The population rate as a histogram: spikes of all neurons in each bin divided by the number of neurons and the bin width (Hz), optionally smoothed by a Gaussian of standard deviation smooth (the counts stay raw). A single trace counts as a population of one. The run must be a whole number of bins.",
 		Source: "Gerstner, Kistler, Naud & Paninski (2014), Neuronal Dynamics, ch. 7 (population activity; from memory)",
-		Params: []runtime.Param{{Name: "pop", Kind: runtime.KindAny, Doc: "a population result of simulate"},
+		Params: []runtime.Param{{Name: "pop", Kind: runtime.KindAny, Doc: "a population result of simulate, or one trace"},
 			timeParam("bin", "5 ms", "bin width"), timeParam("smooth", "0 ms", "Gaussian smoothing σ; 0 for none")},
 		Fn: func(c *runtime.Call) (runtime.Value, error) {
 			p, err := popArgOf(c)
@@ -409,8 +431,19 @@ func singleNeuron(c *runtime.Call, m *Model) (func() neuron.Model, error) {
 	return func() neuron.Model { nm, _ := m.Neuron(0); return nm }, nil
 }
 
-// stepSettings reads the shared integration arguments of sweep and rheobase.
-func stepSettings(c *runtime.Call) (*neuron.Settings, error) {
+// maxStepWork bounds the integration steps of one sweep or rheobase call:
+// 10⁹ steps are minutes of Hodgkin–Huxley work on a shared machine, far
+// more than an f–I curve needs (its steady rates settle within a second of
+// model time).
+const maxStepWork = 1e9
+
+// rheobaseRuns is about how many steps a rheobase bisection simulates: a
+// few to bracket, then log2(1/tolerance) halvings.
+const rheobaseRuns = 20
+
+// stepSettings reads the shared integration arguments of sweep and
+// rheobase, which will simulate about runs steps of the given duration.
+func stepSettings(c *runtime.Call, runs int) (*neuron.Settings, error) {
 	meth, ok := methods[c.Str("method")]
 	if !ok {
 		return nil, runtime.ValueErrorf(`%s: unknown method %q; use "auto", "rk4", "exp_euler", "dopri5" or "exact"`, c.Builtin.Name, c.Str("method"))
@@ -418,6 +451,14 @@ func stepSettings(c *runtime.Call) (*neuron.Settings, error) {
 	dt, d := c.Float("dt"), c.Float("duration")
 	if !(dt > 0) || !(d > 0) || dt > d || math.IsInf(d, 0) {
 		return nil, runtime.ValueErrorf("%s: need 0 < dt ≤ duration, got dt = %s and duration = %s; use e.g. dt = 0.01 ms", c.Builtin.Name, c.Quantity("dt"), c.Quantity("duration"))
+	}
+	if work := float64(runs) * d / dt; work > maxStepWork {
+		fewer := ""
+		if c.Builtin.Name == "sweep" {
+			fewer = " fewer amplitudes or"
+		}
+		return nil, runtime.ValueErrorf("%s: %d runs of %s at dt = %s make %.3g integration steps, above the limit of %.0g (minutes of work); firing settles within about 1000 ms, so shorten duration, or use%s a larger dt",
+			c.Builtin.Name, runs, c.Quantity("duration"), c.Quantity("dt"), work, maxStepWork, fewer)
 	}
 	return &neuron.Settings{Dt: dt, Method: meth}, nil
 }
@@ -454,7 +495,7 @@ func sweepFn(c *runtime.Call) (runtime.Value, error) {
 	if err := checkInputDim(m, d); err != nil {
 		return nil, err
 	}
-	sim, err := stepSettings(c)
+	sim, err := stepSettings(c, len(amps))
 	if err != nil {
 		return nil, err
 	}
@@ -529,7 +570,11 @@ func rheobaseFn(c *runtime.Call) (runtime.Value, error) {
 	if err != nil {
 		return nil, err
 	}
-	sim, err := stepSettings(c)
+	runs := rheobaseRuns
+	if (m.spec == lifSpec || m.spec == lifNormSpec) && c.Float("min_spikes") == 1 {
+		runs = 0 // the closed form simulates nothing
+	}
+	sim, err := stepSettings(c, runs)
 	if err != nil {
 		return nil, err
 	}

@@ -35,3 +35,35 @@ func TestSweepPartial(t *testing.T) {
 		})
 	}
 }
+
+// TestPSTHColumns: the rate column of a smoothed PSTH says it is smoothed,
+// since it stands beside the raw counts (a smoothed rate times the bin width
+// is no longer the count).
+func TestPSTHColumns(t *testing.T) {
+	// Invented spike trains of two neurons over 100 ms.
+	p := &SpikePop{trains: [][]float64{{0.01, 0.05}, {0.02}}, duration: 0.1, model: &Model{spec: lifSpec, n: 2}, stim: "invented"}
+	cases := []struct {
+		name   string
+		smooth float64
+		want   string
+	}{
+		{"raw", 0, "rate (Hz)"},
+		{"smoothed", 0.01, "smoothed rate (Hz)"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			h, err := p.psth(0.01, c.smooth)
+			if err != nil {
+				t.Fatal(err)
+			}
+			bs, err := h.Show()
+			if err != nil || len(bs) == 0 {
+				t.Fatalf("Show: %v", err)
+			}
+			txt, _ := bs[0].Data["text/plain"].(string)
+			if !strings.Contains(txt, c.want) || (c.smooth == 0 && strings.Contains(txt, "smoothed")) {
+				t.Errorf("table text %q; want the column %q", txt, c.want)
+			}
+		})
+	}
+}
