@@ -287,3 +287,15 @@ func TestInstantRate(t *testing.T) {
 		t.Fatal("InstantRate modified its input")
 	}
 }
+
+// BenchmarkTrainMeasures measures CV, LV and the adaptation index of a
+// 10,000-spike Poisson train (no allocations expected).
+func BenchmarkTrainMeasures(b *testing.B) {
+	s := poisson(10000, 20, 5)
+	b.ReportAllocs()
+	for range b.N {
+		_, _ = CV(s)
+		_, _ = LV(s)
+		_, _ = AdaptationIndex(s)
+	}
+}
