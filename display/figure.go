@@ -65,12 +65,17 @@ type Series struct {
 // height relative to the other panels (0 means 1): a stimulus panel of
 // Height 0.35 under a voltage panel of Height 1. NoLegend hides the legend,
 // which is otherwise shown when a panel has two or more series and any of
-// them is named.
+// them is named. XFrom and XTo, when XFrom < XTo (and both are positive on
+// a log axis), fix the x range whatever the data, in the units of the data:
+// a raster over its whole run, from 0 to the duration, rather than from the
+// first spike to the last; data outside are clipped. Otherwise (both 0, the
+// default) the range is that of the data.
 type Panel struct {
 	XLabel, YLabel string
 	LogX, LogY     bool
 	Height         float64
 	NoLegend       bool
+	XFrom, XTo     float64
 	Series         []Series
 }
 

@@ -48,11 +48,11 @@ func (sp *seriesPlot) Plot(c draw.Canvas, p *plot.Plot) {
 			sp.strokeLine(c, trX, trY, sp.s.X, ys, RampColour(f))
 		}
 	case Points:
-		sp.drawPoints(c, trX, trY)
+		sp.drawPoints(c, trX, trY, p.X.Min, p.X.Max)
 	case Steps:
 		sp.drawSteps(c, trX, trY)
 	case Raster:
-		sp.drawRaster(c, trX, trY)
+		sp.drawRaster(c, trX, trY, p.X.Min, p.X.Max)
 	case Band:
 		sp.fillBand(c, trX, trY)
 	case HLine:

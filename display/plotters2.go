@@ -8,12 +8,13 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 )
 
-// drawPoints marks each point, with its error bar when YErr is given.
-func (sp *seriesPlot) drawPoints(c draw.Canvas, trX, trY func(float64) vg.Length) {
+// drawPoints marks each point with x in [x0, x1], with its error bar when
+// YErr is given.
+func (sp *seriesPlot) drawPoints(c draw.Canvas, trX, trY func(float64) vg.Length, x0, x1 float64) {
 	s := sp.s
 	var bars [][]vg.Point
 	for i := range s.X {
-		if !usable(s.X[i], sp.logX) || !usable(s.Y[i], sp.logY) {
+		if !sp.inside(s.X[i], s.Y[i], x0, x1) {
 			continue
 		}
 		x := trX(s.X[i])
@@ -32,10 +33,16 @@ func (sp *seriesPlot) drawPoints(c draw.Canvas, trX, trY func(float64) vg.Length
 	strokePath(c, sp.lineStyle(errBarWidth), c.ClipLinesXY(bars...))
 	g := sp.glyph()
 	for i := range s.X {
-		if usable(s.X[i], sp.logX) && usable(s.Y[i], sp.logY) {
+		if sp.inside(s.X[i], s.Y[i], x0, x1) {
 			c.DrawGlyph(g, vg.Point{X: trX(s.X[i]), Y: trY(s.Y[i])})
 		}
 	}
+}
+
+// inside reports whether a point can be drawn and lies in the x range
+// [x0, x1] (a panel's XFrom and XTo may leave data outside).
+func (sp *seriesPlot) inside(x, y, x0, x1 float64) bool {
+	return usable(x, sp.logX) && usable(y, sp.logY) && x >= x0 && x <= x1
 }
 
 // drawSteps draws stairs; with bin edges the outline starts and ends on
@@ -69,13 +76,14 @@ func (sp *seriesPlot) drawSteps(c draw.Canvas, trX, trY func(float64) vg.Length)
 	strokePath(c, sp.lineStyle(lineWidth), c.ClipLinesXY(lines...))
 }
 
-// drawRaster draws one tick per event, 0.8 of a row high, all in one path.
-func (sp *seriesPlot) drawRaster(c draw.Canvas, trX, trY func(float64) vg.Length) {
+// drawRaster draws one tick per event with x in [x0, x1], 0.8 of a row
+// high, all in one path.
+func (sp *seriesPlot) drawRaster(c draw.Canvas, trX, trY func(float64) vg.Length, x0, x1 float64) {
 	s := sp.s
 	lines := make([][]vg.Point, 0, len(s.X))
 	pts := make([]vg.Point, 0, 2*len(s.X))
 	for i := range s.X {
-		if !usable(s.X[i], sp.logX) || !usable(s.Y[i], sp.logY) {
+		if !sp.inside(s.X[i], s.Y[i], x0, x1) {
 			continue
 		}
 		x := trX(s.X[i])

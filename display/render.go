@@ -6,7 +6,6 @@ import (
 	"io"
 	"math"
 	"path/filepath"
-	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -34,78 +33,48 @@ func styleAxis(a *plot.Axis, label string, log bool) {
 	a.Tick.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(axisWidth)}
 	a.Tick.Label.Color, a.Tick.Label.Font = Ink, textFont(tickFontSize, false)
 	a.Padding = vg.Points(3)
-	a.Tick.Marker = cleanTicks{plot.DefaultTicks{}}
+	a.Tick.Marker = cleanTicks{niceTicks{}}
 	if log {
 		a.Scale = plot.LogScale{}
 		a.Tick.Marker = plot.LogTicks{Prec: -1}
 	}
 }
 
-// cleanTicks labels ticks with just the decimals their spacing needs
-// ("−25", "0.5", not "−25.00") and a true minus sign, as in the captions.
-type cleanTicks struct{ plot.Ticker }
-
-func (c cleanTicks) Ticks(lo, hi float64) []plot.Tick {
-	ts := c.Ticker.Ticks(lo, hi)
-	step := math.Inf(1)
-	prev := math.NaN()
-	for _, t := range ts {
-		if t.Label == "" {
-			continue
-		}
-		if !math.IsNaN(prev) {
-			step = math.Min(step, t.Value-prev)
-		}
-		prev = t.Value
-	}
-	dec := 0
-	if step > 0 && !math.IsInf(step, 0) {
-		dec = max(0, int(math.Ceil(-math.Log10(step)-1e-9)))
-	}
-	for i, t := range ts {
-		if t.Label != "" {
-			l := strconv.FormatFloat(t.Value, 'f', dec, 64)
-			if l == "-"+strconv.FormatFloat(0, 'f', dec, 64) {
-				l = l[1:] // no "−0"
-			}
-			ts[i].Label = strings.Replace(l, "-", "−", 1)
-		}
-	}
-	return ts
-}
-
-// blankTicks keeps a ticker's marks but drops their labels (upper panels
-// of a shared x axis).
-type blankTicks struct{ plot.Ticker }
-
-func (b blankTicks) Ticks(lo, hi float64) []plot.Tick {
-	ts := b.Ticker.Ticks(lo, hi)
-	for i := range ts {
-		ts[i].Label = ""
-	}
-	return ts
-}
-
 // buildPlots turns the figure's panels into gonum plots with their ranges
 // set; st comes from f.stats.
 func (f *Figure) buildPlots(st [][]seriesStats) []*plot.Plot {
 	plots := make([]*plot.Plot, len(f.Panels))
-	gx0, gx1, _, _ := panelRange(flatten(st))
+	w, h := f.size()
+	total := 0.0
+	for _, pn := range f.Panels {
+		total += pn.weight()
+	}
 	auto := 0 // colours run on across panels: a stimulus beneath a trace gets its own
 	for i, pn := range f.Panels {
 		p := plot.New()
 		p.BackgroundColor = nil // transparent: the page shows through
 		styleAxis(&p.X, pn.XLabel, pn.LogX)
 		styleAxis(&p.Y, pn.YLabel, pn.LogY)
-		x0, x1, y0, y1 := panelRange(st[i])
-		if f.SharedX {
-			x0, x1 = gx0, gx1
-			if i < len(f.Panels)-1 {
-				p.X.Label.Text = ""
-				p.X.Tick.Marker = blankTicks{p.X.Tick.Marker}
-			}
+		if !pn.LogX {
+			p.X.Tick.Marker = ticksFor(w-80, 0) // less the y axis and margins
 		}
 		if !pn.LogY {
+			p.Y.Tick.Marker = ticksFor((h-80)*pn.weight()/total, 0) // less title and x axis
+		}
+		_, _, y0, y1 := panelRange(st[i])
+		x0, x1 := f.xSpan(i, st)
+		if f.SharedX && i < len(f.Panels)-1 {
+			p.X.Label.Text = ""
+			p.X.Tick.Marker = blankTicks{p.X.Tick.Marker}
+		}
+		if pn.rasterOnly() && !pn.LogY {
+			// Whole rows of neurons: ticks on indices only, and 0.7 of a
+			// row more at each end, so that the outer rows of events (which
+			// reach ±0.4 of their index) keep clear of the axes, and no
+			// tick is labelled with an index past the last row.
+			p.Y.Tick.Marker = ticksFor((h-80)*pn.weight()/total, 1)
+			y0, y1 = y0-0.7, y1+0.7
+		} else if !pn.LogY {
 			m := 0.04 * (y1 - y0) // keep peaks off the frame
 			y0, y1 = y0-m, y1+m
 		}
@@ -117,12 +86,48 @@ func (f *Figure) buildPlots(st [][]seriesStats) []*plot.Plot {
 	return plots
 }
 
-func flatten(st [][]seriesStats) []seriesStats {
-	var out []seriesStats
-	for _, s := range st {
-		out = append(out, s...)
+// xSpan is the x range of panel i: its XFrom to XTo when set, else that
+// of its data; under SharedX the union of every panel's range.
+func (f *Figure) xSpan(i int, st [][]seriesStats) (x0, x1 float64) {
+	if !f.SharedX {
+		return f.Panels[i].xSpan(st[i])
 	}
-	return out
+	x0, x1 = math.Inf(1), math.Inf(-1)
+	for k, pn := range f.Panels {
+		a, b := pn.xSpan(st[k])
+		x0, x1 = math.Min(x0, a), math.Max(x1, b)
+	}
+	return x0, x1
+}
+
+// xSpan is the panel's own x range (see Panel.XFrom).
+func (p Panel) xSpan(st []seriesStats) (x0, x1 float64) {
+	if p.fixedX() {
+		return p.XFrom, p.XTo
+	}
+	x0, x1, _, _ = panelRange(st)
+	return x0, x1
+}
+
+// fixedX reports whether XFrom and XTo set the panel's x range.
+func (p Panel) fixedX() bool {
+	return usable(p.XFrom, p.LogX) && usable(p.XTo, p.LogX) && p.XFrom < p.XTo
+}
+
+// rasterOnly reports whether every data series of the panel is a raster,
+// so that its y axis counts neurons.
+func (p Panel) rasterOnly() bool {
+	n := 0
+	for _, s := range p.Series {
+		switch s.Kind {
+		case Raster:
+			n++
+		case HLine, VLine:
+		default:
+			return false
+		}
+	}
+	return n > 0
 }
 
 // addSeries adds the panel's series in order, with colours and a legend;
@@ -194,14 +199,55 @@ func (f *Figure) draw(cv vg.Canvas, w, h float64, plots []*plot.Plot) {
 func (f *Figure) layout(dc draw.Canvas, plots []*plot.Plot, drawTitle bool) []draw.Canvas {
 	area := draw.Crop(dc, vg.Points(4), -vg.Points(8), vg.Points(4), -vg.Points(6))
 	if f.Title != "" {
-		ts := textStyle(titleSize, true)
-		ts.XAlign, ts.YAlign = draw.XCenter, draw.YTop
-		if drawTitle {
-			dc.FillText(ts, vg.Point{X: area.Center().X, Y: area.Max.Y}, f.Title)
+		ts, lines := fitTitle(f.Title, area.Max.X-area.Min.X)
+		for _, l := range lines {
+			if drawTitle {
+				dc.FillText(ts, vg.Point{X: area.Center().X, Y: area.Max.Y}, l)
+			}
+			area.Max.Y -= ts.Rectangle(l).Size().Y
 		}
-		area.Max.Y -= ts.Rectangle(f.Title).Size().Y + vg.Points(6)
+		area.Max.Y -= vg.Points(6)
 	}
 	return f.panelCanvases(area, plots)
+}
+
+// fitTitle breaks a title into lines no wider than width, at spaces, and
+// returns them with their style: a long title wraps rather than running
+// off both edges; a word too long for a line makes the font smaller, down
+// to minTitleSize, below which the line is left to overflow.
+func fitTitle(title string, width vg.Length) (text.Style, []string) {
+	const minTitleSize = 8
+	for size := float64(titleSize); ; size-- {
+		ts := textStyle(size, true)
+		ts.XAlign, ts.YAlign = draw.XCenter, draw.YTop
+		lines := wrapWords(title, func(s string) bool { return ts.Width(s) <= width })
+		fits := true
+		for _, l := range lines {
+			fits = fits && ts.Width(l) <= width
+		}
+		if fits || size <= minTitleSize {
+			return ts, lines
+		}
+	}
+}
+
+// wrapWords splits s at spaces into lines, each as long as fits allows
+// (a single word that does not fit gets a line of its own).
+func wrapWords(s string, fits func(string) bool) []string {
+	var lines []string
+	cur := ""
+	for _, w := range strings.Fields(s) {
+		switch {
+		case cur == "":
+			cur = w
+		case fits(cur + " " + w):
+			cur += " " + w
+		default:
+			lines = append(lines, cur)
+			cur = w
+		}
+	}
+	return append(lines, cur)
 }
 
 // panelCanvases slices area into one canvas per panel, by panel height,

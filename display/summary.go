@@ -63,6 +63,9 @@ func (f *Figure) panelSummary(i int, st []seriesStats) string {
 		}
 	}
 	x0, x1, y0, y1 := panelRange(st)
+	if pn.fixedX() {
+		x0, x1 = pn.XFrom, pn.XTo
+	}
 	fmt.Fprintf(&b, "\n  x from %s to %s%s; y from %s to %s%s", FormatNumber(x0, 0), FormatNumber(x1, 0), logNote(pn.LogX),
 		FormatNumber(y0, 0), FormatNumber(y1, 0), logNote(pn.LogY))
 	skipped := 0
