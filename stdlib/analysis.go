@@ -269,7 +269,9 @@ func (p *SpikePop) rasterFigure() *display.Figure {
 	if len(ts) == 0 { // an empty raster still needs a drawable series
 		ta.Data, y = []float64{0}, []float64{math.NaN()}
 	}
+	// The time axis spans the whole run, not just first to last spike.
 	return &display.Figure{Title: p.model.spec.title + " population: " + p.stim, Panels: []display.Panel{{XLabel: ta.Label, YLabel: "neuron",
+		XFrom: 0, XTo: Scalar(p.duration, ta.Unit),
 		Series: []display.Series{{Kind: display.Raster, Name: "spikes", X: ta.Data, Y: y}}}}}
 }
 

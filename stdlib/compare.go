@@ -137,9 +137,9 @@ func (r *Residuals) Show() ([]display.Bundle, error) {
 	yu := runtime.ChooseUnit(append(append([]float64{}, r.measured...), r.fitted...), r.data.YDim)
 	t := &display.Table{Title: r.String(), Columns: []display.Column{
 		display.Numbers(r.data.XName, xa.Unit.Symbol, xa.Data),
-		display.Numbers("measured", yu.Symbol, AxisIn("", r.measured, yu).Data),
-		display.Numbers("model", yu.Symbol, AxisIn("", r.fitted, yu).Data),
-		display.Numbers("residual", yu.Symbol, AxisIn("", r.resid, yu).Data),
+		grouped(display.Numbers("measured", yu.Symbol, AxisIn("", r.measured, yu).Data)),
+		grouped(display.Numbers("model", yu.Symbol, AxisIn("", r.fitted, yu).Data)),
+		grouped(display.Numbers("residual", yu.Symbol, AxisIn("", r.resid, yu).Data)),
 	}}
 	f, err := r.Figure()
 	if err != nil {
@@ -184,3 +184,10 @@ var (
 	_ Plottable       = (*Residuals)(nil)
 	_ runtime.Fielder = (*Residuals)(nil)
 )
+
+// grouped puts a column in the group of the response, so that measured,
+// model and residual share their decimals and the subtraction reads right.
+func grouped(c display.Column) display.Column {
+	c.Group = "response"
+	return c
+}
