@@ -24,7 +24,7 @@ var allowed = []struct {
 	{pkg: "runtime/units", may: nil},
 	{pkg: "runtime", may: []string{"runtime/syntax", "runtime/units", "display"}},
 	{pkg: "runtime/langtest", may: []string{"runtime", "display"}, exact: true}, // a test helper over the runtime
-	{pkg: "kernel", may: []string{"kernel", "kernel/"}}, // itself and its own sub-packages only
+	{pkg: "kernel", may: []string{"kernel", "kernel/"}},                         // itself and its own sub-packages only
 	{pkg: "stdlib", may: []string{"runtime", "runtime/", "display", "stdlib/"}, exact: true},
 	{pkg: "stdlib/", may: nil},                // a domain package: nothing of ours
 	{pkg: "", may: []string{""}, exact: true}, // main wires everything

@@ -12,11 +12,11 @@ import (
 
 // SweepSettings tune Sweep and Rheobase; nil or zero fields mean the defaults.
 type SweepSettings struct {
-	Sim      *Settings // integration settings; Record defaults to the first variable only
-	Onset    float64   // step onset, s; default 0
-	Length   float64   // step length, s; default 1 s. The run lasts Onset + Length.
-	Window   float64   // steady-rate window at the end of the step, s; default Length/2
-	Workers  int       // goroutines; default GOMAXPROCS. Results do not depend on it.
+	Sim      *Settings             // integration settings; Record defaults to the first variable only
+	Onset    float64               // step onset, s; default 0
+	Length   float64               // step length, s; default 1 s. The run lasts Onset + Length.
+	Window   float64               // steady-rate window at the end of the step, s; default Length/2
+	Workers  int                   // goroutines; default GOMAXPROCS. Results do not depend on it.
 	Progress func(done, total int) // called after each finished amplitude with the number finished
 }
 
