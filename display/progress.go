@@ -118,13 +118,15 @@ func (p *Progress) Done() {
 }
 
 // Interrupted reports the final state of a stopped task: "interrupted at
-// 60%: partial results kept" (or without the percentage if Total is unknown).
+// 60% (6/10 done)", or "interrupted (5 done)" if Total is unknown. Whether
+// the finished part is kept is the caller's to say: some work keeps it (a
+// sweep shows its partial curve), some cannot (one long simulation).
 func (p *Progress) Interrupted() {
 	p.finish(func(time.Duration) string {
 		if p.Total > 0 {
-			return fmt.Sprintf("interrupted at %.0f%%: partial results kept", 100*p.done/p.Total)
+			return fmt.Sprintf("interrupted at %.0f%% (%s/%s done)", 100*p.done/p.Total, FormatNumber(p.done, 0), FormatNumber(p.Total, 0))
 		}
-		return "interrupted: partial results kept"
+		return fmt.Sprintf("interrupted (%s done)", FormatNumber(p.done, 0))
 	})
 }
 

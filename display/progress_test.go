@@ -80,7 +80,7 @@ func TestProgressStates(t *testing.T) {
 		want  string
 	}{
 		{"done", 10, func(p *Progress, clk *fakeClock) { p.Start(); clk.step(3200 * time.Millisecond); p.Set(10); p.Done() }, "sweep: done in 3.2 s"},
-		{"interrupted", 10, func(p *Progress, clk *fakeClock) { p.Set(6); p.Interrupted() }, "sweep: interrupted at 60%: partial results kept"},
+		{"interrupted", 10, func(p *Progress, clk *fakeClock) { p.Set(6); p.Interrupted() }, "sweep: interrupted at 60% (6/10 done)"},
 		{"unknown total", 0, func(p *Progress, clk *fakeClock) { p.Start(); clk.step(2 * time.Second); p.Set(5) }, "sweep: 5 done, 2 s elapsed"},
 		{"eta", 100, func(p *Progress, clk *fakeClock) { p.Start(); clk.step(time.Second); p.Set(25) }, "sweep [#####···············]  25% (25/100), 1 s elapsed, about 3 s left"},
 	}
