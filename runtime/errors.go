@@ -115,10 +115,6 @@ func UnitErrorf(format string, args ...any) error {
 	return &kindError{KindUnit, fmt.Sprintf(format, args...)}
 }
 
-func nameErrorf(format string, args ...any) error {
-	return &kindError{KindName, fmt.Sprintf(format, args...)}
-}
-
 // kindOf finds the kind of err, ValueError by default.
 func kindOf(err error) string {
 	var ke *kindError

@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"math"
 	"math/rand/v2"
 	"sort"
 	"strings"
@@ -228,7 +229,7 @@ func vectorText(v *Vector) string {
 
 // jsonNum keeps NaN and infinities out of JSON, which cannot hold them.
 func jsonNum(x float64) any {
-	if x != x || x > 1.7976931348623157e308 || x < -1.7976931348623157e308 {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
 		return fmt.Sprint(x)
 	}
 	return x
@@ -237,8 +238,8 @@ func jsonNum(x float64) any {
 // Describe is a one-line description of a binding for inspection.
 func Describe(name string, v Value) string {
 	s := v.String()
-	if len(s) > 200 {
-		s = s[:200] + "…"
+	if r := []rune(s); len(r) > 200 { // cut at a character, not inside one
+		s = string(r[:200]) + "…"
 	}
 	return fmt.Sprintf("%s: %s = %s", name, v.Type(), strings.TrimSpace(s))
 }

@@ -336,7 +336,7 @@ func (p *PSTH) Show() ([]display.Bundle, error) {
 	}
 	t := &display.Table{Title: p.name, Columns: []display.Column{display.Numbers("bin start", "ms", start),
 		display.Numbers("count", "", p.r.Counts), display.Numbers(p.rateLabel(), "Hz", p.r.Rate)}}
-	return ShowBoth(t, f)
+	return display.TableAndFigure(t, f)
 }
 
 // rateLabel names the rate column: "smoothed rate" beside the raw counts

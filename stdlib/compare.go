@@ -145,7 +145,7 @@ func (r *Residuals) Show() ([]display.Bundle, error) {
 	if err != nil {
 		return nil, err
 	}
-	return ShowBoth(t, f)
+	return display.TableAndFigure(t, f)
 }
 
 func phaseFn(c *runtime.Call) (runtime.Value, error) {

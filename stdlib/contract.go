@@ -48,9 +48,3 @@ func Label(name string, u units.Unit) string {
 
 // Scalar converts one SI value into u.
 func Scalar(si float64, u units.Unit) float64 { return (si - u.Offset) / u.Scale }
-
-// ShowBoth is the Show of a value that is a table and a figure at once:
-// two outputs, the table first.
-func ShowBoth(t *display.Table, f *display.Figure) ([]display.Bundle, error) {
-	return display.TableAndFigure(t, f)
-}

@@ -8,7 +8,6 @@ import (
 	"github.com/loligo-lab/loligo/display"
 	"github.com/loligo-lab/loligo/runtime"
 	"github.com/loligo-lab/loligo/runtime/units"
-	"github.com/loligo-lab/loligo/stdlib/activation"
 	"github.com/loligo-lab/loligo/stdlib/tuning"
 )
 
@@ -109,16 +108,6 @@ func NewLIFTuning(tauRef, tauM, gain, bias float64, x []float64, xDim units.Dim)
 	c := NewModelCurve("LIF tuning curve", m, x, xDim)
 	c.Source = "Dayan & Abbott (2001), Theoretical Neuroscience, ch. 5"
 	return c, nil
-}
-
-// NewRateTuning returns the tuning curve of a rate neuron,
-// rate = scale·f(gain·x + bias) with scale in hertz and gain in SI units of
-// 1/xDim, tabulated at x.
-func NewRateTuning(f activation.Func, gain, bias, scale float64, x []float64, xDim units.Dim) *Curve {
-	m := tuning.RateCurve{Act: f, Gain: gain, Bias: bias, Scale: scale, InputUnit: siSymbol(xDim)}
-	c := NewModelCurve(f.Name()+" tuning curve", m, x, xDim)
-	c.Source = "common practice (rate neuron: activation of gain·I + bias)"
-	return c
 }
 
 // AddSeries adds a further named series over the curve's inputs, in SI units
@@ -349,7 +338,7 @@ func (c *Curve) Show() ([]display.Bundle, error) {
 	if err != nil {
 		return nil, err
 	}
-	return ShowBoth(c.Table(), f)
+	return display.TableAndFigure(c.Table(), f)
 }
 
 // FieldNames implements runtime.Fielder.

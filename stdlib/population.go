@@ -123,7 +123,7 @@ func (p *Population) Figure() (*display.Figure, error) {
 // Show implements runtime.Shower: the neuron table, then the family figure.
 func (p *Population) Show() ([]display.Bundle, error) {
 	f, _ := p.Figure()
-	return ShowBoth(p.Table(), f)
+	return display.TableAndFigure(p.Table(), f)
 }
 
 // Readout is the value kind of a linear readout: the estimate and target as
@@ -187,7 +187,7 @@ func (r *Readout) Show() ([]display.Bundle, error) {
 	if err != nil {
 		return nil, err
 	}
-	return ShowBoth(t, f)
+	return display.TableAndFigure(t, f)
 }
 
 var (

@@ -1,7 +1,6 @@
 package notebook
 
 import (
-	"encoding/base64"
 	"fmt"
 	"html"
 	"io"
@@ -97,11 +96,6 @@ var xmlDecl = regexp.MustCompile(`^\s*<\?xml[^>]*\?>\s*(<!DOCTYPE[^>]*>\s*)?`)
 
 // stripXMLDecl removes the XML prologue, which is not allowed inside HTML.
 func stripXMLDecl(svg string) string { return xmlDecl.ReplaceAllString(svg, "") }
-
-// PNGDataURI is a data URI for PNG bytes (for callers that embed figures).
-func PNGDataURI(png []byte) string {
-	return "data:image/png;base64," + base64.StdEncoding.EncodeToString(png)
-}
 
 // reportCSS is the report's own look: one readable column, quiet code cells,
 // outputs set off by a left rule. It reads in light and dark modes.
