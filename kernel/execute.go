@@ -41,13 +41,16 @@ func (k *Kernel) execute(sock Socket, m *message) {
 	result, err := k.run(req.Code, out)
 	if err != nil {
 		name, value, tb := describe(err)
+		if req.StopOnError == nil || *req.StopOnError {
+			// Abort what was queued before the client could see this error;
+			// a request it sends after the reply must run. Counted before
+			// the reply goes out, so the two cannot race.
+			k.abortN = len(k.queue)
+		}
 		if !req.Silent {
 			k.publish(m, "error", map[string]any{"ename": name, "evalue": value, "traceback": tb})
 		}
 		k.reply(sock, m, "execute_reply", errorContent(k.count, name, value, tb))
-		if req.StopOnError == nil || *req.StopOnError {
-			k.aborting = true // the executor aborts the queue once this request is idle
-		}
 		return
 	}
 	if result != nil && !req.Silent {
@@ -100,10 +103,11 @@ func describe(err error) (name, value string, tb []string) {
 	return "Error", err.Error(), strings.Split(err.Error(), "\n")
 }
 
-// abortQueued answers every execute_request already queued with status
-// "aborted" (stop_on_error); other queued requests are served as usual.
+// abortQueued answers the execute_requests that were queued when an execute
+// failed with stop_on_error (k.abortN of them) with status "aborted"; other
+// queued requests among them are served as usual.
 func (k *Kernel) abortQueued() {
-	for {
+	for ; k.abortN > 0; k.abortN-- {
 		select {
 		case m := <-k.queue:
 			k.around(k.shell, m, func(sock Socket, m *message) {
@@ -114,6 +118,7 @@ func (k *Kernel) abortQueued() {
 				k.dispatch(sock, m)
 			})
 		default:
+			k.abortN = 0
 			return
 		}
 	}

@@ -50,10 +50,7 @@ func (k *Kernel) executor() {
 		select {
 		case m := <-k.queue:
 			k.around(k.shell, m, k.dispatch)
-			if k.aborting {
-				k.abortQueued()
-				k.aborting = false
-			}
+			k.abortQueued() // after a failed execute with stop_on_error
 		case <-k.done:
 			return
 		}

@@ -39,10 +39,10 @@ type Kernel struct {
 	iopub   Socket
 	hb      Socket
 
-	queue    chan *message // shell requests for the execution goroutine
-	hist     history
-	count    int  // execution_count, owned by the execution goroutine
-	aborting bool // stop_on_error tripped; owned by the execution goroutine
+	queue  chan *message // shell requests for the execution goroutine
+	hist   history
+	count  int // execution_count, owned by the execution goroutine
+	abortN int // requests to abort after a stop_on_error failure; owned by the execution goroutine
 
 	cellMu     sync.Mutex
 	cellCancel context.CancelFunc // cancels the running cell; nil when idle

@@ -159,3 +159,26 @@ func TestComms(t *testing.T) {
 		t.Error("comm_msg/comm_close got a shell reply")
 	}
 }
+
+// TestStopOnErrorSparesLaterRequests: an execute the client sends after it
+// has seen the error reply was not queued behind the failure and must run
+// (messaging spec 5.3: stop_on_error aborts the queued executes only).
+func TestStopOnErrorSparesLaterRequests(t *testing.T) {
+	t.Parallel()
+	r := newRig(t)
+	// The race this guards showed with the reference client on a loaded
+	// machine (the reply went out before the queue was drained); repeat a
+	// few times so a regression has chances to show here too.
+	for i := 0; i < 20; i++ {
+		fail, _ := r.request("execute_request", map[string]any{"code": "fail stop"})
+		r.shell.in <- fail
+		if m := r.next(r.shell); m.Content["status"] != "error" {
+			t.Fatalf("failing execute: %v", m.Content)
+		}
+		next, id := r.request("execute_request", map[string]any{"code": "1"})
+		r.shell.in <- next
+		if m := r.next(r.shell); m.Parent["msg_id"] != id || m.Content["status"] != "ok" {
+			t.Fatalf("try %d: the execute sent after the error reply was %v", i, m.Content["status"])
+		}
+	}
+}
